@@ -1,0 +1,42 @@
+import type { Role } from '../server/auth/roles';
+import type { Db } from '../server/db/knex';
+import { createCampaign, createSurveyTeam } from './factories/campaigns';
+import { createPerson } from './factories/people';
+
+// The demo scenario: an invented survey team, one live campaign and an account for every role.
+// Everything here is made up for the demo; none of it describes a real survey or star.
+
+export const DEMO_PASSWORD = 'dipdeck-demo';
+
+export const DEMO_ACCOUNTS: { email: string; displayName: string; role: Role }[] = [
+  { email: 'volunteer@demo.dipdeck.test', displayName: 'Vera Volunteer', role: 'volunteer' },
+  { email: 'moderator@demo.dipdeck.test', displayName: 'Milo Moderator', role: 'moderator' },
+  { email: 'scientist@demo.dipdeck.test', displayName: 'Dr Sana Scientist', role: 'scientist' },
+  { email: 'admin@demo.dipdeck.test', displayName: 'Ada Admin', role: 'admin' },
+];
+
+export const DEMO_TEAM = {
+  name: 'Larkspur Transit Survey',
+  description:
+    'A small invented team that watches one patch of sky with a space photometer and asks volunteers to look for dips the period search missed.',
+};
+
+export const DEMO_CAMPAIGN = {
+  name: 'Larkspur Field A, first season',
+  description:
+    'Twenty-seven days of brightness measurements for a few hundred stars. Swipe right when you see a dip, left when the star stays flat; tap where the dip is deepest.',
+};
+
+export async function seedDemo(db: Db): Promise<void> {
+  const people = await Promise.all(
+    DEMO_ACCOUNTS.map((account) => createPerson(db, { ...account, password: DEMO_PASSWORD, creditByName: true })),
+  );
+  const scientist = people.find((person) => person.role === 'scientist');
+  const teamId = await createSurveyTeam(db, DEMO_TEAM.name, DEMO_TEAM.description);
+  await createCampaign(db, {
+    ...DEMO_CAMPAIGN,
+    status: 'live',
+    surveyTeamId: teamId,
+    createdBy: scientist?.id ?? null,
+  });
+}

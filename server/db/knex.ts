@@ -1,0 +1,55 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import knex, { type Knex } from 'knex';
+import type { Config } from '../config';
+
+export type Db = Knex;
+
+export const SQLITE_BUSY_TIMEOUT_MS = 5_000;
+
+interface BetterSqliteConnection {
+  pragma(source: string): unknown;
+}
+
+/** Knex settings for the configured database: PostgreSQL when DATABASE_URL is set, else SQLite in DATA_DIR. */
+export function knexSettings(config: Pick<Config, 'databaseUrl' | 'sqliteFile'>): Knex.Config {
+  const migrations: Knex.MigratorConfig = {
+    directory: path.resolve(import.meta.dirname, '../../migrations'),
+    loadExtensions: ['.ts'],
+    tableName: 'knex_migrations',
+  };
+  if (config.databaseUrl) {
+    return { client: 'pg', connection: config.databaseUrl, pool: { min: 0, max: 10 }, migrations };
+  }
+  return {
+    client: 'better-sqlite3',
+    connection: { filename: config.sqliteFile },
+    useNullAsDefault: true,
+    // better-sqlite3 is synchronous: one connection per process, so statements queue instead of contending.
+    pool: {
+      min: 1,
+      max: 1,
+      afterCreate(connection: BetterSqliteConnection, done: (error: Error | null, connection: unknown) => void) {
+        try {
+          // See docs/decisions/001-sqlite-wal-and-transactions.md for why these four.
+          connection.pragma('journal_mode = WAL');
+          connection.pragma('synchronous = NORMAL');
+          connection.pragma(`busy_timeout = ${SQLITE_BUSY_TIMEOUT_MS}`);
+          connection.pragma('foreign_keys = ON');
+          done(null, connection);
+        } catch (error) {
+          done(error as Error, connection);
+        }
+      },
+    },
+    migrations,
+  };
+}
+
+/** The one Knex instance of a process. */
+export function createDb(config: Pick<Config, 'databaseUrl' | 'sqliteFile'>): Db {
+  if (!config.databaseUrl) fs.mkdirSync(path.dirname(config.sqliteFile), { recursive: true });
+  return knex(knexSettings(config));
+}
+
+export const isSqlite = (db: Db): boolean => db.client.config.client === 'better-sqlite3';

@@ -1,0 +1,140 @@
+import type { Role } from '../auth/roles';
+import type { Db } from './knex';
+import { nowIso, toBool, toIso, toIsoOrNull } from './rows';
+
+export interface PersonRow {
+  id: number;
+  email: string | null;
+  displayName: string;
+  role: Role;
+  suspendedAt: string | null;
+  suspendedReason: string | null;
+  newsletterOptIn: boolean;
+  creditByName: boolean;
+  emailConfirmedAt: string | null;
+  sessionsValidAfter: string | null;
+  lastActiveAt: string | null;
+  deletedAt: string | null;
+  createdAt: string;
+  updatedAt: string;
+}
+
+type Raw = Record<string, unknown>;
+
+function toPerson(row: Raw): PersonRow {
+  return {
+    id: Number(row.id),
+    email: (row.email as string | null) ?? null,
+    displayName: String(row.display_name),
+    role: row.role as Role,
+    suspendedAt: toIsoOrNull(row.suspended_at),
+    suspendedReason: (row.suspended_reason as string | null) ?? null,
+    newsletterOptIn: toBool(row.newsletter_opt_in),
+    creditByName: toBool(row.credit_by_name),
+    emailConfirmedAt: toIsoOrNull(row.email_confirmed_at),
+    sessionsValidAfter: toIsoOrNull(row.sessions_valid_after),
+    lastActiveAt: toIsoOrNull(row.last_active_at),
+    deletedAt: toIsoOrNull(row.deleted_at),
+    createdAt: toIso(row.created_at),
+    updatedAt: toIso(row.updated_at),
+  };
+}
+
+export const normaliseEmail = (email: string): string => email.trim().toLowerCase();
+
+export async function findPersonById(db: Db, id: number): Promise<PersonRow | undefined> {
+  const row = await db('people').where({ id }).first();
+  return row ? toPerson(row) : undefined;
+}
+
+export async function findPersonByEmail(
+  db: Db,
+  email: string,
+): Promise<{ person: PersonRow; passwordHash: string | null } | undefined> {
+  const row = await db('people').where({ email: normaliseEmail(email) }).whereNull('deleted_at').first();
+  return row ? { person: toPerson(row), passwordHash: (row.password_hash as string | null) ?? null } : undefined;
+}
+
+export interface NewPerson {
+  email: string;
+  displayName: string;
+  passwordHash: string;
+  role?: Role;
+  newsletterOptIn?: boolean;
+  creditByName?: boolean;
+}
+
+/** Inserts a person; answers undefined when the e-mail is already taken (the unique index decides). */
+export async function insertPerson(db: Db, person: NewPerson): Promise<PersonRow | undefined> {
+  const now = nowIso();
+  const optIn = person.newsletterOptIn ?? false;
+  const rows = await db('people')
+    .insert({
+      email: normaliseEmail(person.email),
+      display_name: person.displayName,
+      password_hash: person.passwordHash,
+      role: person.role ?? 'volunteer',
+      newsletter_opt_in: optIn,
+      newsletter_opt_in_at: optIn ? now : null,
+      credit_by_name: person.creditByName ?? false,
+      created_at: now,
+      updated_at: now,
+    })
+    .onConflict('email')
+    .ignore()
+    .returning('*');
+  const row = rows[0];
+  return row ? toPerson(row) : undefined;
+}
+
+export async function updatePasswordHash(db: Db, id: number, passwordHash: string): Promise<void> {
+  await db('people').where({ id }).update({ password_hash: passwordHash, updated_at: nowIso() });
+}
+
+export interface PersonChanges {
+  role?: Role;
+  suspendedAt?: string | null;
+  suspendedReason?: string | null;
+}
+
+export async function updatePerson(db: Db, id: number, changes: PersonChanges): Promise<PersonRow | undefined> {
+  const update: Raw = { updated_at: nowIso() };
+  if (changes.role !== undefined) update.role = changes.role;
+  if (changes.suspendedAt !== undefined) update.suspended_at = changes.suspendedAt;
+  if (changes.suspendedReason !== undefined) update.suspended_reason = changes.suspendedReason;
+  const rows = await db('people').where({ id }).update(update).returning('*');
+  const row = rows[0];
+  return row ? toPerson(row) : undefined;
+}
+
+export async function touchLastActive(db: Db, id: number): Promise<void> {
+  await db('people').where({ id }).update({ last_active_at: nowIso() });
+}
+
+export interface PeopleQuery {
+  search?: string | undefined;
+  role?: Role | undefined;
+  limit: number;
+  offset: number;
+}
+
+export async function listPeople(db: Db, query: PeopleQuery): Promise<{ people: PersonRow[]; total: number }> {
+  const base = db('people').whereNull('deleted_at');
+  if (query.role) base.andWhere({ role: query.role });
+  if (query.search) {
+    const pattern = `%${query.search.toLowerCase().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    base.andWhere((w) =>
+      w
+        .whereRaw("lower(email) like ? escape '\\'", [pattern])
+        .orWhereRaw("lower(display_name) like ? escape '\\'", [pattern]),
+    );
+  }
+  const [countRow] = await base.clone().count<{ n: number | string }[]>({ n: '*' });
+  const rows = await base.clone().orderBy('id', 'asc').limit(query.limit).offset(query.offset);
+  return { people: rows.map(toPerson), total: Number(countRow?.n ?? 0) };
+}
+
+export async function countPeople(db: Db): Promise<number> {
+  const [row] = await db('people').count<{ n: number | string }[]>({ n: '*' });
+  return Number(row?.n ?? 0);
+}

@@ -1,0 +1,75 @@
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import { createPassport } from '../auth/passport';
+import { sessionCookieName, sessionMiddleware } from '../auth/session';
+import { resolveSessionSecret } from '../auth/session-secret';
+import type { Config } from '../config';
+import type { Db } from '../db/knex';
+import { createLogger, type Logger } from '../logger';
+import type { AppDeps, ComponentStatus } from './app-deps';
+import { mountRoute } from './define-route';
+import { apiNotFound, errorHandler } from './error-handler';
+import { routeTable } from './route-table';
+import { staticClient } from './static-client';
+
+export interface AppOptions {
+  config: Config;
+  db: Db;
+  logger?: Logger;
+  queueStatus?: () => Promise<ComponentStatus>;
+}
+
+/** Builds the Express app without listening, so that tests drive it with supertest. */
+export function createApp(options: AppOptions): { app: Express; deps: AppDeps } {
+  const { config, db } = options;
+  const logger = options.logger ?? createLogger(config);
+  const deps: AppDeps = {
+    config,
+    db,
+    logger,
+    passport: createPassport(db, config),
+    sessionCookie: sessionCookieName(config),
+    queueStatus: options.queueStatus ?? (async () => ({ status: 'not_configured' })),
+  };
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxy ? 1 : false);
+  app.use(
+    helmet({
+      strictTransportSecurity: config.isProduction,
+      contentSecurityPolicy: {
+        directives: { 'upgrade-insecure-requests': config.isProduction ? [] : null },
+      },
+    }),
+  );
+  app.use(
+    pinoHttp({
+      logger,
+      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+      serializers: {
+        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
+      },
+      customProps: (req) => ({ personId: req.user?.id }),
+    }),
+  );
+
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb' }));
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+  api.use(sessionMiddleware(config, db, resolveSessionSecret(config.sessionSecret, config.dataDir)));
+  api.use(deps.passport.initialize());
+  api.use(deps.passport.session());
+  for (const route of routeTable(deps)) mountRoute(api, route);
+  api.use(apiNotFound);
+  api.use(errorHandler);
+
+  app.use('/api', api);
+  app.use(staticClient());
+  return { app, deps };
+}

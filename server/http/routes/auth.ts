@@ -1,0 +1,99 @@
+import type { Request } from 'express';
+import { z } from 'zod';
+import { csrf } from '../../auth/csrf';
+import type { PersonRow } from '../../db/people';
+import { signUp } from '../../services/auth/sign-up';
+import { toPersonView } from '../../services/people/person-view';
+import type { AppDeps } from '../app-deps';
+import { defineRoute } from '../define-route';
+
+const email = z.email('Enter a valid e-mail address').max(254, 'At most 254 characters');
+
+const signUpBody = z.object({
+  email,
+  displayName: z
+    .string('Enter a display name')
+    .trim()
+    .min(1, 'Enter a display name')
+    .max(80, 'At most 80 characters'),
+  password: z
+    .string('Enter a password')
+    .min(10, 'Use at least 10 characters')
+    .max(1024, 'At most 1024 characters'),
+  newsletterOptIn: z.boolean().default(false),
+});
+
+const signInBody = z.object({
+  email: z.string('Enter your e-mail address').trim().min(1, 'Enter your e-mail address').max(254),
+  password: z.string('Enter your password').min(1, 'Enter your password').max(1024),
+});
+
+// passport 0.7 regenerates the session on login (a new id: no session fixation) and keeps nothing
+// of the old one, so the client fetches a new CSRF token afterwards.
+function logIn(req: Request, person: PersonRow): Promise<void> {
+  return new Promise((resolve, reject) => req.login(person, (error) => (error ? reject(error) : resolve())));
+}
+
+function authenticate(req: Request, deps: AppDeps): Promise<PersonRow> {
+  return new Promise((resolve, reject) => {
+    deps.passport.authenticate('local', { session: false }, (error: unknown, person: PersonRow | false) => {
+      if (error) reject(error);
+      else if (!person) reject(new Error('passport-local answered no person and no error'));
+      else resolve(person);
+    })(req, req.res!, reject);
+  });
+}
+
+export const authRoutes = (deps: AppDeps) => [
+  defineRoute({
+    method: 'get',
+    path: '/auth/csrf',
+    access: 'public',
+    summary: 'A CSRF token for this session, to send as X-CSRF-Token on state-changing requests',
+    handle: async ({ req }) => ({ token: csrf.generateToken(req) }),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/auth/sign-up',
+    access: 'public',
+    summary: 'Create a volunteer account and sign in',
+    body: signUpBody,
+    status: 201,
+    handle: async ({ req, body }) => {
+      const person = await signUp(deps.db, body);
+      await logIn(req, person);
+      return { person: toPersonView(person) };
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/auth/sign-in',
+    access: 'public',
+    summary: 'Sign in with e-mail and password',
+    body: signInBody,
+    handle: async ({ req, body }) => {
+      req.body = body; // passport-local reads the trimmed values
+      const person = await authenticate(req, deps);
+      await logIn(req, person);
+      return { person: toPersonView(person) };
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/auth/sign-out',
+    access: 'public',
+    summary: 'Sign out and end this session',
+    handle: async ({ req, res }) => {
+      await new Promise<void>((resolve, reject) => req.logout((error) => (error ? reject(error) : resolve())));
+      await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
+      res.clearCookie(deps.sessionCookie, { path: '/' });
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/auth/me',
+    access: 'signed-in',
+    summary: 'The signed-in person',
+    handle: async ({ person }) => ({ person: toPersonView(person!) }),
+  }),
+];

@@ -1,0 +1,21 @@
+import type { Config } from './config';
+import type { Logger } from './logger';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemo } from '../seeds/demo';
+import type { Db } from './db/knex';
+import { migrateLatest } from './db/migrate';
+import { countPeople } from './db/people';
+
+/** Start-up: bring the schema up to date and, on an empty database, plant the demo scenario. */
+export async function prepareDatabase(db: Db, config: Pick<Config, 'demo'>, logger: Logger): Promise<void> {
+  const applied = await migrateLatest(db);
+  if (applied.length > 0) logger.info({ applied }, 'migrations applied');
+  if (!config.demo) return;
+  if ((await countPeople(db)) > 0) return;
+  await seedDemo(db);
+  logger.info('demo scenario seeded');
+}
+
+export function demoAccountsBanner(): string {
+  const lines = DEMO_ACCOUNTS.map((account) => `  ${account.role.padEnd(10)} ${account.email}`);
+  return ['Demo accounts (password: ' + DEMO_PASSWORD + '):', ...lines].join('\n');
+}

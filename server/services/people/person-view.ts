@@ -1,0 +1,25 @@
+import type { Role } from '../../auth/roles';
+import type { PersonRow } from '../../db/people';
+
+/** What the API says about a person to that person and to admins. */
+export interface PersonView {
+  id: number;
+  email: string;
+  displayName: string;
+  role: Role;
+  suspended: boolean;
+  newsletterOptIn: boolean;
+  createdAt: string;
+}
+
+export function toPersonView(person: PersonRow): PersonView {
+  return {
+    id: person.id,
+    email: person.email ?? '',
+    displayName: person.displayName,
+    role: person.role,
+    suspended: person.suspendedAt !== null,
+    newsletterOptIn: person.newsletterOptIn,
+    createdAt: person.createdAt,
+  };
+}

@@ -1,0 +1,68 @@
+import type { ReactNode, TdHTMLAttributes, ThHTMLAttributes } from 'react';
+
+/*
+ * Below the md breakpoint each row becomes a card and each cell shows its column name from `label`,
+ * because a six-column table cannot be read at phone width.
+ */
+
+export function Table({ caption, children }: { caption: string; children: ReactNode }) {
+  return (
+    <div className="md:overflow-x-auto md:rounded-lg md:border md:border-line md:bg-surface">
+      <table className="w-full border-collapse text-left">
+        <caption className="sr-only">{caption}</caption>
+        {children}
+      </table>
+    </div>
+  );
+}
+
+export function TableHead({ children }: { children: ReactNode }) {
+  return (
+    <thead className="hidden border-b border-line bg-paper md:table-header-group">
+      <tr>{children}</tr>
+    </thead>
+  );
+}
+
+export function Th({ children, className = '', ...rest }: ThHTMLAttributes<HTMLTableCellElement>) {
+  return (
+    <th
+      scope="col"
+      {...rest}
+      className={`px-4 py-3 text-xs font-semibold uppercase tracking-[0.08em] text-muted ${className}`}
+    >
+      {children}
+    </th>
+  );
+}
+
+export function TableBody({ children }: { children: ReactNode }) {
+  return <tbody className="flex flex-col gap-3 md:table-row-group">{children}</tbody>;
+}
+
+export function Tr({ children }: { children: ReactNode }) {
+  return (
+    <tr className="flex flex-col gap-2 rounded-lg border border-line bg-surface p-4 md:table-row md:rounded-none md:border-0 md:border-b md:p-0 md:last:border-b-0">
+      {children}
+    </tr>
+  );
+}
+
+interface TdProps extends TdHTMLAttributes<HTMLTableCellElement> {
+  label: string;
+}
+
+export function Td({ label, children, className = '', ...rest }: TdProps) {
+  return (
+    <td
+      data-label={label}
+      {...rest}
+      className={
+        'flex items-center justify-between gap-4 md:table-cell md:px-4 md:py-3 md:align-middle ' +
+        `before:text-xs before:font-semibold before:uppercase before:tracking-[0.08em] before:text-muted before:content-[attr(data-label)] md:before:content-none ${className}`
+      }
+    >
+      {children}
+    </td>
+  );
+}

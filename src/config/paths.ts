@@ -1,0 +1,32 @@
+import { env } from '@/config/env';
+
+/** A same-origin path we are willing to send someone back to after signing in. */
+export function safeRedirect(target: string | null | undefined, fallback: string): string {
+  if (!target || !target.startsWith('/') || target.startsWith('//')) return fallback;
+  return target;
+}
+
+function withRedirect(path: string, redirectTo?: string): string {
+  return redirectTo ? `${path}?redirectTo=${encodeURIComponent(redirectTo)}` : path;
+}
+
+export const paths = {
+  home: { path: '/', getHref: () => '/' },
+  signIn: { path: '/sign-in', getHref: (redirectTo?: string) => withRedirect('/sign-in', redirectTo) },
+  signUp: { path: '/sign-up', getHref: (redirectTo?: string) => withRedirect('/sign-up', redirectTo) },
+  deck: { path: '/deck', getHref: () => '/deck' },
+  record: { path: '/record', getHref: () => '/record' },
+  desk: { path: '/desk', getHref: () => '/desk' },
+  lab: { path: '/lab', getHref: () => '/lab' },
+  admin: { path: '/admin', getHref: () => '/admin' },
+} as const;
+
+export const apiPaths = {
+  csrf: () => `${env.VITE_API_BASE}/auth/csrf`,
+  me: () => `${env.VITE_API_BASE}/auth/me`,
+  signIn: () => `${env.VITE_API_BASE}/auth/sign-in`,
+  signUp: () => `${env.VITE_API_BASE}/auth/sign-up`,
+  signOut: () => `${env.VITE_API_BASE}/auth/sign-out`,
+  people: () => `${env.VITE_API_BASE}/admin/people`,
+  person: (id: number) => `${env.VITE_API_BASE}/admin/people/${id}`,
+} as const;
