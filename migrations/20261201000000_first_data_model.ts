@@ -12,7 +12,13 @@ const VERDICT_ANSWERS = ['dip', 'flat', 'unsure'];
 const RULINGS = ['dip', 'flat', 'systematic'];
 const UPLOAD_STATUSES = ['queued', 'processing', 'done', 'failed'];
 const CANDIDATE_STATES = ['promoted', 'scheduled', 'observed', 'resolved'];
-const DISPOSITIONS = ['planet candidate', 'eclipsing binary', 'systematic', 'false positive', 'confirmed planet'];
+const DISPOSITIONS = [
+  'planet candidate',
+  'eclipsing binary',
+  'systematic',
+  'false positive',
+  'confirmed planet',
+];
 const NEWSLETTER_STATUSES = ['draft', 'scheduled', 'sending', 'sent', 'cancelled'];
 const DELIVERY_STATUSES = ['claimed', 'sent', 'failed', 'skipped', 'unknown'];
 
@@ -122,7 +128,9 @@ export async function up(knex: Knex): Promise<void> {
     t.string('storage_path', 512).notNullable();
     t.string('target_hint', 64).nullable();
     t.boolean('is_quiet_reference').notNullable().defaultTo(false);
-    t.enu('status', UPLOAD_STATUSES, { useNative: false, enumName: 'upload_status' }).notNullable().defaultTo('queued');
+    t.enu('status', UPLOAD_STATUSES, { useNative: false, enumName: 'upload_status' })
+      .notNullable()
+      .defaultTo('queued');
     t.string('stage', 32).nullable();
     t.double('progress').notNullable().defaultTo(0);
     t.text('error').nullable();
@@ -158,8 +166,12 @@ export async function up(knex: Knex): Promise<void> {
     t.integer('campaign_id').notNullable().references('id').inTable('campaigns').onDelete('CASCADE');
     t.integer('light_curve_id').notNullable().references('id').inTable('light_curves').onDelete('CASCADE');
     t.integer('target_id').notNullable().references('id').inTable('targets').onDelete('CASCADE');
-    t.enu('kind', SNIPPET_KINDS, { useNative: false, enumName: 'snippet_kind' }).notNullable().defaultTo('real');
-    t.enu('state', SNIPPET_STATES, { useNative: false, enumName: 'snippet_state' }).notNullable().defaultTo('open');
+    t.enu('kind', SNIPPET_KINDS, { useNative: false, enumName: 'snippet_kind' })
+      .notNullable()
+      .defaultTo('real');
+    t.enu('state', SNIPPET_STATES, { useNative: false, enumName: 'snippet_state' })
+      .notNullable()
+      .defaultTo('open');
     t.integer('source_snippet_id').nullable().references('id').inTable('snippets').onDelete('SET NULL');
     t.double('time_start').notNullable();
     t.double('time_end').notNullable();

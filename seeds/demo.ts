@@ -29,7 +29,9 @@ export const DEMO_CAMPAIGN = {
 
 export async function seedDemo(db: Db): Promise<void> {
   const people = await Promise.all(
-    DEMO_ACCOUNTS.map((account) => createPerson(db, { ...account, password: DEMO_PASSWORD, creditByName: true })),
+    DEMO_ACCOUNTS.map((account) =>
+      createPerson(db, { ...account, password: DEMO_PASSWORD, creditByName: true }),
+    ),
   );
   const scientist = people.find((person) => person.role === 'scientist');
   const teamId = await createSurveyTeam(db, DEMO_TEAM.name, DEMO_TEAM.description);

@@ -26,7 +26,11 @@ const envSchema = z.object({
   PUBLIC_URL: z.url().optional(),
   DIPDECK_DEMO: booleanFlag.default(true),
   TRUST_PROXY: booleanFlag.default(false),
-  SESSION_IDLE_HOURS: z.coerce.number().positive().max(24 * 30).default(72),
+  SESSION_IDLE_HOURS: z.coerce
+    .number()
+    .positive()
+    .max(24 * 30)
+    .default(72),
   SESSION_ABSOLUTE_DAYS: z.coerce.number().positive().max(365).default(30),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
 });
@@ -57,7 +61,9 @@ export class ConfigError extends Error {
 
 /** Parses the environment once at start-up; a wrong value stops the process with every problem named. */
 export function loadConfig(env: Record<string, string | undefined> = process.env): Config {
-  const defined = Object.fromEntries(Object.entries(env).filter(([, value]) => value !== undefined && value !== ''));
+  const defined = Object.fromEntries(
+    Object.entries(env).filter(([, value]) => value !== undefined && value !== ''),
+  );
   const parsed = envSchema.safeParse(defined);
   if (!parsed.success) {
     const problems = parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`);

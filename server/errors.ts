@@ -28,4 +28,5 @@ export class AppError extends Error {
   }
 }
 
-export const notFound = (what: string, code = 'not_found') => new AppError(code, `${what} was not found`, 'not_found');
+export const notFound = (what: string, code = 'not_found') =>
+  new AppError(code, `${what} was not found`, 'not_found');

@@ -9,7 +9,12 @@ export function createLogger(config: Pick<Config, 'logLevel'>): Logger {
     level: config.logLevel,
     base: { app: 'dipdeck' },
     redact: {
-      paths: ['req.headers.cookie', 'req.headers.authorization', 'req.headers["x-csrf-token"]', 'res.headers["set-cookie"]'],
+      paths: [
+        'req.headers.cookie',
+        'req.headers.authorization',
+        'req.headers["x-csrf-token"]',
+        'res.headers["set-cookie"]',
+      ],
       censor: '[redacted]',
     },
   });

@@ -1,9 +1,9 @@
-import type { Config } from './config';
-import type { Logger } from './logger';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemo } from '../seeds/demo';
+import type { Config } from './config';
 import type { Db } from './db/knex';
 import { migrateLatest } from './db/migrate';
 import { countPeople } from './db/people';
+import type { Logger } from './logger';
 
 /** Start-up: bring the schema up to date and, on an empty database, plant the demo scenario. */
 export async function prepareDatabase(db: Db, config: Pick<Config, 'demo'>, logger: Logger): Promise<void> {
@@ -17,5 +17,5 @@ export async function prepareDatabase(db: Db, config: Pick<Config, 'demo'>, logg
 
 export function demoAccountsBanner(): string {
   const lines = DEMO_ACCOUNTS.map((account) => `  ${account.role.padEnd(10)} ${account.email}`);
-  return ['Demo accounts (password: ' + DEMO_PASSWORD + '):', ...lines].join('\n');
+  return [`Demo accounts (password: ${DEMO_PASSWORD}):`, ...lines].join('\n');
 }

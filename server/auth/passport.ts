@@ -21,12 +21,15 @@ export function createPassport(db: Db, config: Pick<Config, 'sessionAbsoluteMs'>
   const instance = new passport.Passport() as unknown as passport.PassportStatic;
 
   instance.use(
-    new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: true }, (email, password, done) => {
-      checkCredentials(db, email, password).then(
-        (person) => done(null, person),
-        (error) => done(error),
-      );
-    }),
+    new LocalStrategy(
+      { usernameField: 'email', passwordField: 'password', session: true },
+      (email, password, done) => {
+        checkCredentials(db, email, password).then(
+          (person) => done(null, person),
+          (error) => done(error),
+        );
+      },
+    ),
   );
 
   instance.serializeUser((person, done) => {

@@ -31,7 +31,9 @@ function derive(password: string, salt: Buffer, params: ScryptParams): Promise<B
 export async function hashPassword(password: string, params: ScryptParams = CURRENT_PARAMS): Promise<string> {
   const salt = randomBytes(SALT_BYTES);
   const key = await derive(password, salt, params);
-  return ['scrypt', params.log2N, params.r, params.p, salt.toString('base64'), key.toString('base64')].join('$');
+  return ['scrypt', params.log2N, params.r, params.p, salt.toString('base64'), key.toString('base64')].join(
+    '$',
+  );
 }
 
 function parseHash(stored: string): { params: ScryptParams; salt: Buffer; key: Buffer } | null {

@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import knex, { type Knex } from 'knex';
 import type { Config } from '../config';
+import { migrationSource } from './migration-list';
 
 export type Db = Knex;
 
@@ -13,11 +14,7 @@ interface BetterSqliteConnection {
 
 /** Knex settings for the configured database: PostgreSQL when DATABASE_URL is set, else SQLite in DATA_DIR. */
 export function knexSettings(config: Pick<Config, 'databaseUrl' | 'sqliteFile'>): Knex.Config {
-  const migrations: Knex.MigratorConfig = {
-    directory: path.resolve(import.meta.dirname, '../../migrations'),
-    loadExtensions: ['.ts'],
-    tableName: 'knex_migrations',
-  };
+  const migrations: Knex.MigratorConfig = { migrationSource, tableName: 'knex_migrations' };
   if (config.databaseUrl) {
     return { client: 'pg', connection: config.databaseUrl, pool: { min: 0, max: 10 }, migrations };
   }
@@ -29,7 +26,10 @@ export function knexSettings(config: Pick<Config, 'databaseUrl' | 'sqliteFile'>)
     pool: {
       min: 1,
       max: 1,
-      afterCreate(connection: BetterSqliteConnection, done: (error: Error | null, connection: unknown) => void) {
+      afterCreate(
+        connection: BetterSqliteConnection,
+        done: (error: Error | null, connection: unknown) => void,
+      ) {
         try {
           // See docs/decisions/001-sqlite-wal-and-transactions.md for why these four.
           connection.pragma('journal_mode = WAL');

@@ -51,8 +51,13 @@ export async function findPersonByEmail(
   db: Db,
   email: string,
 ): Promise<{ person: PersonRow; passwordHash: string | null } | undefined> {
-  const row = await db('people').where({ email: normaliseEmail(email) }).whereNull('deleted_at').first();
-  return row ? { person: toPerson(row), passwordHash: (row.password_hash as string | null) ?? null } : undefined;
+  const row = await db('people')
+    .where({ email: normaliseEmail(email) })
+    .whereNull('deleted_at')
+    .first();
+  return row
+    ? { person: toPerson(row), passwordHash: (row.password_hash as string | null) ?? null }
+    : undefined;
 }
 
 export interface NewPerson {
@@ -97,7 +102,11 @@ export interface PersonChanges {
   suspendedReason?: string | null;
 }
 
-export async function updatePerson(db: Db, id: number, changes: PersonChanges): Promise<PersonRow | undefined> {
+export async function updatePerson(
+  db: Db,
+  id: number,
+  changes: PersonChanges,
+): Promise<PersonRow | undefined> {
   const update: Raw = { updated_at: nowIso() };
   if (changes.role !== undefined) update.role = changes.role;
   if (changes.suspendedAt !== undefined) update.suspended_at = changes.suspendedAt;
@@ -118,7 +127,10 @@ export interface PeopleQuery {
   offset: number;
 }
 
-export async function listPeople(db: Db, query: PeopleQuery): Promise<{ people: PersonRow[]; total: number }> {
+export async function listPeople(
+  db: Db,
+  query: PeopleQuery,
+): Promise<{ people: PersonRow[]; total: number }> {
   const base = db('people').whereNull('deleted_at');
   if (query.role) base.andWhere({ role: query.role });
   if (query.search) {

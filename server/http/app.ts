@@ -49,7 +49,11 @@ export function createApp(options: AppOptions): { app: Express; deps: AppDeps } 
       logger,
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
       serializers: {
-        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+        req: (req: { id: unknown; method: string; url: string }) => ({
+          id: req.id,
+          method: req.method,
+          url: req.url,
+        }),
         res: (res: { statusCode: number }) => ({ status: res.statusCode }),
       },
       customProps: (req) => ({ personId: req.user?.id }),

@@ -1,8 +1,8 @@
 import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
 import type { z } from 'zod';
+import { csrf } from '../auth/csrf';
 import { hasRole, type Role } from '../auth/roles';
 import type { PersonRow } from '../db/people';
-import { csrf } from '../auth/csrf';
 import { AppError } from '../errors';
 import { fieldErrors } from './validation';
 
@@ -28,7 +28,11 @@ export interface RouteContext<B, Q, P> {
   person: PersonRow | null;
 }
 
-export interface RouteDef<B extends Schema | undefined, Q extends Schema | undefined, P extends Schema | undefined> {
+export interface RouteDef<
+  B extends Schema | undefined,
+  Q extends Schema | undefined,
+  P extends Schema | undefined,
+> {
   method: 'get' | 'post' | 'patch' | 'put' | 'delete';
   /** Path under /api, in Express syntax. */
   path: string;

@@ -16,7 +16,11 @@ const STATUS: Record<ErrorKind, number> = {
 // Errors raised by Express's own body parser and by csrf-sync, by their `type`/`code`.
 function fromFramework(error: { type?: string; code?: string; status?: number }): AppError | undefined {
   if (error.code === 'EBADCSRFTOKEN') {
-    return new AppError('csrf_invalid', 'Missing or stale X-CSRF-Token header: fetch GET /api/auth/csrf', 'forbidden');
+    return new AppError(
+      'csrf_invalid',
+      'Missing or stale X-CSRF-Token header: fetch GET /api/auth/csrf',
+      'forbidden',
+    );
   }
   switch (error.type) {
     case 'entity.parse.failed':
@@ -49,5 +53,7 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
     return;
   }
   req.log?.error({ err: error }, 'unexpected error');
-  res.status(500).json({ error: { code: 'internal', message: 'Something went wrong on our side; it has been logged' } });
+  res
+    .status(500)
+    .json({ error: { code: 'internal', message: 'Something went wrong on our side; it has been logged' } });
 };

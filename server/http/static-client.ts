@@ -11,7 +11,8 @@ export function staticClient(): RequestHandler[] {
     index: false,
     setHeaders(res, file) {
       // Vite puts a content hash in asset names, so they never change.
-      if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+      if (file.includes(`${path.sep}assets${path.sep}`))
+        res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
     },
   });
   const fallback: RequestHandler = (req, res, next) => {

@@ -84,7 +84,9 @@ export const authRoutes = (deps: AppDeps) => [
     access: 'public',
     summary: 'Sign out and end this session',
     handle: async ({ req, res }) => {
-      await new Promise<void>((resolve, reject) => req.logout((error) => (error ? reject(error) : resolve())));
+      await new Promise<void>((resolve, reject) =>
+        req.logout((error) => (error ? reject(error) : resolve())),
+      );
       await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
       res.clearCookie(deps.sessionCookie, { path: '/' });
     },

@@ -11,11 +11,15 @@ export async function checkCredentials(db: Db, email: string, password: string):
   const found = await findPersonByEmail(db, email);
   const storedHash = found?.passwordHash ?? (await decoyPasswordHash());
   const matches = await verifyPassword(password, storedHash);
-  if (!found || !found.passwordHash || !matches) {
+  if (!found?.passwordHash || !matches) {
     throw new AppError('invalid_credentials', INVALID_CREDENTIALS, 'unauthenticated');
   }
   if (found.person.suspendedAt) {
-    throw new AppError('account_suspended', 'This account is suspended; write to the team if you think this is wrong', 'forbidden');
+    throw new AppError(
+      'account_suspended',
+      'This account is suspended; write to the team if you think this is wrong',
+      'forbidden',
+    );
   }
   if (needsRehash(found.passwordHash)) {
     await updatePasswordHash(db, found.person.id, await hashPassword(password));

@@ -12,7 +12,10 @@ export async function checkHealth(db: Db, queueStatus: () => Promise<ComponentSt
     .raw('select 1')
     .then(() => ({ status: 'ok' as const }))
     .catch((error: Error) => ({ status: 'down' as const, detail: error.message }));
-  const queue = await queueStatus().catch((error: Error) => ({ status: 'down' as const, detail: error.message }));
+  const queue = await queueStatus().catch((error: Error) => ({
+    status: 'down' as const,
+    detail: error.message,
+  }));
   const healthy = database.status === 'ok' && queue.status !== 'down';
   return { status: healthy ? 'ok' : 'degraded', database, queue };
 }

@@ -1,0 +1,108 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import type { Express } from 'express';
+import request from 'supertest';
+import { afterAll } from 'vitest';
+import { createPerson } from '../../../seeds/factories/people';
+import type { Role } from '../../../server/auth/roles';
+import { type Config, loadConfig } from '../../../server/config';
+import { createDb, type Db } from '../../../server/db/knex';
+import { migrateLatest } from '../../../server/db/migrate';
+import type { PersonRow } from '../../../server/db/people';
+import { createApp } from '../../../server/http/app';
+
+export const TEST_PASSWORD = 'a long test passphrase';
+
+export interface TestApp {
+  app: Express;
+  db: Db;
+  config: Config;
+  dataDir: string;
+}
+
+/** A real app on a fresh SQLite file in its own temporary directory, removed after the test file. */
+export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
+  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'dipdeck-api-'));
+  const config = loadConfig({ NODE_ENV: 'test', DATA_DIR: dataDir, DIPDECK_DEMO: '0', ...env });
+  const db = createDb(config);
+  await migrateLatest(db);
+  const { app } = createApp({ config, db });
+  afterAll(async () => {
+    await db.destroy();
+    fs.rmSync(dataDir, { recursive: true, force: true });
+  });
+  return { app, db, config, dataDir };
+}
+
+export type Agent = ReturnType<typeof request.agent>;
+
+/** A cookie-keeping client that sends the session's CSRF token on every request, like the web client. */
+export class Browser {
+  readonly agent: Agent;
+  private token: string | undefined;
+
+  constructor(app: Express) {
+    this.agent = request.agent(app);
+  }
+
+  async csrf(): Promise<string> {
+    this.token ??= (await this.agent.get('/api/auth/csrf').expect(200)).body.token as string;
+    return this.token;
+  }
+
+  /** After sign-in, sign-up and sign-out the session is new, and so is its token. */
+  forgetCsrf(): void {
+    this.token = undefined;
+  }
+
+  get(url: string) {
+    return this.agent.get(url);
+  }
+
+  // The token is fetched before the request is made: the agent attaches its cookies at creation.
+  async post(url: string, body?: object) {
+    const token = await this.csrf();
+    const call = this.agent.post(url).set('X-CSRF-Token', token);
+    return body === undefined ? call : call.send(body);
+  }
+
+  async patch(url: string, body: object) {
+    const token = await this.csrf();
+    return this.agent.patch(url).set('X-CSRF-Token', token).send(body);
+  }
+
+  async delete(url: string) {
+    const token = await this.csrf();
+    return this.agent.delete(url).set('X-CSRF-Token', token);
+  }
+
+  async signIn(email: string, password = TEST_PASSWORD) {
+    const response = await this.post('/api/auth/sign-in', { email, password });
+    this.forgetCsrf();
+    return response;
+  }
+}
+
+export async function personWithRole(
+  db: Db,
+  role: Role,
+  overrides: { email?: string } = {},
+): Promise<PersonRow> {
+  return createPerson(db, { role, password: TEST_PASSWORD, reuseHash: true, ...overrides });
+}
+
+/** A browser already signed in as a new person with this role. */
+export async function signedIn(test: TestApp, role: Role): Promise<{ browser: Browser; person: PersonRow }> {
+  const person = await personWithRole(test.db, role);
+  const browser = new Browser(test.app);
+  await browser.signIn(person.email!).then((response) => {
+    if (response.status !== 200) throw new Error(`sign-in failed: ${response.status} ${response.text}`);
+  });
+  return { browser, person };
+}
+
+export function sessionCookie(response: request.Response): string | undefined {
+  const cookies = ([] as string[]).concat(response.headers['set-cookie'] ?? []);
+  return cookies.find((cookie) => cookie.startsWith('dipdeck.sid='))?.split(';')[0];
+}
