@@ -1,0 +1,11 @@
+// npm run bench [-- name-filter]: runs each benchmark module and prints one `name: value unit` per line.
+import * as auth from './auth.bench';
+import { type Figure, formatFigure } from './figures';
+
+const BENCHMARKS: [name: string, run: () => Promise<Figure[]>][] = [['auth', auth.run]];
+
+const filter = process.argv[2];
+for (const [name, run] of BENCHMARKS) {
+  if (filter && !name.includes(filter)) continue;
+  for (const figure of await run()) console.info(formatFigure(figure));
+}
