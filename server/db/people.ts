@@ -100,6 +100,9 @@ export interface PersonChanges {
   role?: Role;
   suspendedAt?: string | null;
   suspendedReason?: string | null;
+  displayName?: string;
+  newsletterOptIn?: boolean;
+  creditByName?: boolean;
 }
 
 export async function updatePerson(
@@ -111,6 +114,12 @@ export async function updatePerson(
   if (changes.role !== undefined) update.role = changes.role;
   if (changes.suspendedAt !== undefined) update.suspended_at = changes.suspendedAt;
   if (changes.suspendedReason !== undefined) update.suspended_reason = changes.suspendedReason;
+  if (changes.displayName !== undefined) update.display_name = changes.displayName;
+  if (changes.creditByName !== undefined) update.credit_by_name = changes.creditByName;
+  if (changes.newsletterOptIn !== undefined) {
+    update.newsletter_opt_in = changes.newsletterOptIn;
+    update.newsletter_opt_in_at = changes.newsletterOptIn ? update.updated_at : null;
+  }
   const rows = await db('people').where({ id }).update(update).returning('*');
   const row = rows[0];
   return row ? toPerson(row) : undefined;

@@ -21,18 +21,22 @@ export function AppLayout() {
         Skip to content
       </a>
       <header className="sticky top-0 z-30 border-b border-line bg-paper/95 backdrop-blur-sm">
-        <div className="mx-auto flex h-16 max-w-6xl items-center gap-4 px-4 md:px-6">
-          <Link to={paths.home.getHref()} className="flex min-h-target items-center rounded-md" aria-label="Dipdeck, home">
+        <div className="mx-auto flex h-16 max-w-6xl items-center gap-4 px-4 lg:px-6">
+          <Link
+            to={paths.home.getHref()}
+            className="flex min-h-target items-center rounded-md"
+            aria-label="Dipdeck, home"
+          >
             <Wordmark />
           </Link>
           {me.isPending ? null : person ? <SignedInNav person={person} /> : <SignedOutActions />}
         </div>
       </header>
-      <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-4 py-8 md:px-6 md:py-12">
+      <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-4 py-8 lg:px-6 lg:py-12">
         <Outlet />
       </main>
       <footer className="border-t border-line">
-        <div className="mx-auto flex max-w-6xl flex-col gap-1 px-4 py-6 text-sm text-muted md:flex-row md:justify-between md:px-6">
+        <div className="mx-auto flex max-w-6xl flex-col gap-1 px-4 py-6 text-sm text-muted lg:flex-row lg:justify-between lg:px-6">
           <p>Dipdeck: volunteers and astronomers looking for planets, one snippet at a time.</p>
           <p>All demo accounts and light curves are invented.</p>
         </div>
@@ -70,29 +74,46 @@ function SignedInNav({ person }: { person: Person }) {
   const visible = areas.filter((area) => hasRole(person, area.minRole));
 
   // A new page means the phone menu has done its job.
-  // biome-ignore lint/correctness/useExhaustiveDependencies: closing is the reaction to the location changing
-  useEffect(() => setOpen(false), [location.pathname]);
+  useEffect(() => {
+    if (location.pathname) setOpen(false);
+  }, [location.pathname]);
+
+  useEffect(() => {
+    if (!open) return;
+    const closeOnEscape = (event: KeyboardEvent) => {
+      if (event.key === 'Escape') setOpen(false);
+    };
+    document.addEventListener('keydown', closeOnEscape);
+    return () => document.removeEventListener('keydown', closeOnEscape);
+  }, [open]);
 
   return (
     <>
       <Button
         variant="secondary"
-        className="ml-auto md:hidden"
+        className="ml-auto lg:hidden"
         aria-expanded={open}
         aria-controls={menuId}
         onClick={() => setOpen((value) => !value)}
       >
-        <svg aria-hidden="true" viewBox="0 0 20 20" className="size-5" fill="none" stroke="currentColor" strokeWidth="2">
+        <svg
+          aria-hidden="true"
+          viewBox="0 0 20 20"
+          className="size-5"
+          fill="none"
+          stroke="currentColor"
+          strokeWidth="2"
+        >
           {open ? <path d="M5 5l10 10M15 5L5 15" /> : <path d="M3 6h14M3 10h14M3 14h14" />}
         </svg>
         Menu
       </Button>
       <div
         id={menuId}
-        className={`${open ? 'flex' : 'hidden'} absolute inset-x-0 top-16 flex-col gap-4 border-b border-line bg-paper px-4 pt-2 pb-5 shadow-[0_16px_24px_-20px_rgb(29_35_48/0.5)] md:static md:ml-2 md:flex md:flex-1 md:flex-row md:items-center md:border-0 md:bg-transparent md:p-0 md:shadow-none`}
+        className={`${open ? 'flex' : 'hidden'} absolute inset-x-0 top-16 flex-col gap-4 border-b border-line bg-paper px-4 pt-2 pb-5 shadow-[0_16px_24px_-20px_rgb(29_35_48/0.5)] lg:static lg:ml-2 lg:flex lg:flex-1 lg:flex-row lg:items-center lg:border-0 lg:bg-transparent lg:p-0 lg:shadow-none`}
       >
-        <nav aria-label="Main" className="md:flex-1">
-          <ul className="flex flex-col md:flex-row md:gap-1">
+        <nav aria-label="Main" className="lg:flex-1">
+          <ul className="flex flex-col lg:flex-row lg:gap-1">
             {visible.map((area) => (
               <li key={area.key}>
                 <NavLink
@@ -100,7 +121,7 @@ function SignedInNav({ person }: { person: Person }) {
                   className={({ isActive }) =>
                     `relative flex min-h-target items-center rounded-md px-3 text-base font-medium transition-colors hover:bg-amber-wash ${
                       isActive
-                        ? 'text-ink after:absolute after:inset-y-2 after:left-0 after:w-[3px] after:rounded-full after:bg-amber md:after:inset-x-3 md:after:inset-y-auto md:after:-bottom-[11px] md:after:h-[3px] md:after:w-auto'
+                        ? 'text-ink after:absolute after:inset-y-2 after:left-0 after:w-[3px] after:rounded-full after:bg-amber lg:after:inset-x-3 lg:after:inset-y-auto lg:after:-bottom-[11px] lg:after:h-[3px] lg:after:w-auto'
                         : 'text-muted hover:text-ink'
                     }`
                   }
@@ -111,15 +132,19 @@ function SignedInNav({ person }: { person: Person }) {
             ))}
           </ul>
         </nav>
-        <div className="flex items-center justify-between gap-3 border-t border-line pt-4 md:border-0 md:pt-0">
-          <p className="flex flex-col text-right leading-tight">
+        <div className="flex items-center justify-between gap-3 border-t border-line pt-4 lg:border-0 lg:pt-0">
+          <p className="flex flex-col leading-tight lg:text-right">
             <span className="text-sm font-medium text-ink">{person.displayName}</span>
             <span className="tabular text-xs text-muted">{roleLabels[person.role].toLowerCase()}</span>
           </p>
           <Button
             variant="secondary"
             busy={signOut.isPending}
-            onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate(paths.home.getHref()) })}
+            onClick={() => {
+              // Leave the protected page first, or its guard would answer the sign-out by asking to sign in.
+              navigate(paths.home.getHref());
+              signOut.mutate();
+            }}
           >
             Sign out
           </Button>

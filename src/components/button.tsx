@@ -24,7 +24,13 @@ interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
   children: ReactNode;
 }
 
-export function Button({ variant = 'primary', busy = false, className = '', children, ...rest }: ButtonProps) {
+export function Button({
+  variant = 'primary',
+  busy = false,
+  className = '',
+  children,
+  ...rest
+}: ButtonProps) {
   return (
     <button
       type="button"
@@ -33,7 +39,12 @@ export function Button({ variant = 'primary', busy = false, className = '', chil
       disabled={rest.disabled || busy}
       className={buttonClasses(variant, className)}
     >
-      {busy ? <span aria-hidden="true" className="size-3 animate-spin rounded-full border-2 border-current border-r-transparent" /> : null}
+      {busy ? (
+        <span
+          aria-hidden="true"
+          className="size-3 animate-spin rounded-full border-2 border-current border-r-transparent"
+        />
+      ) : null}
       {children}
     </button>
   );

@@ -2,7 +2,7 @@ import { type InputHTMLAttributes, type ReactNode, useId } from 'react';
 import { FieldError } from '@/components/text-field';
 
 interface CheckboxFieldProps extends Omit<InputHTMLAttributes<HTMLInputElement>, 'id' | 'type'> {
-  label: ReactNode;
+  label: string;
   hint?: ReactNode;
   error?: string | undefined;
 }
@@ -15,11 +15,7 @@ export function CheckboxField({ label, hint, error, ...rest }: CheckboxFieldProp
 
   return (
     <div className="flex flex-col gap-1.5">
-      {/* The whole row is the label, so the touch target is far bigger than the box itself. */}
-      <label
-        htmlFor={id}
-        className="flex min-h-target cursor-pointer items-start gap-3 rounded-md border border-line bg-surface p-3 hover:border-edge"
-      >
+      <div className="relative flex min-h-target items-start gap-3 rounded-md border border-edge bg-surface p-3 hover:border-ink has-checked:border-ink has-checked:bg-amber-wash">
         <input
           id={id}
           type="checkbox"
@@ -28,15 +24,21 @@ export function CheckboxField({ label, hint, error, ...rest }: CheckboxFieldProp
           aria-describedby={describedBy}
           className="mt-0.5 size-5 shrink-0 cursor-pointer accent-ink"
         />
-        <span className="flex flex-col gap-1">
-          <span className="text-base font-medium text-ink">{label}</span>
+        <div className="flex flex-col gap-1">
+          {/* The label's overlay makes the whole box the touch target, while the name stays short. */}
+          <label
+            htmlFor={id}
+            className="cursor-pointer text-base font-medium text-ink after:absolute after:inset-0"
+          >
+            {label}
+          </label>
           {hint ? (
-            <span id={hintId} className="text-sm text-muted">
+            <p id={hintId} className="text-sm text-muted">
               {hint}
-            </span>
+            </p>
           ) : null}
-        </span>
-      </label>
+        </div>
+      </div>
       {error ? <FieldError id={errorId}>{error}</FieldError> : null}
     </div>
   );

@@ -14,7 +14,12 @@ export function EmptyState({ title, children, upcoming, action, sketch = 'flat' 
   return (
     <section className="overflow-hidden rounded-lg border border-line bg-surface">
       <div className="border-b border-dashed border-line bg-paper/60 px-4 py-5 md:px-8">
-        <LightCurveSketch dip={sketch === 'dip'} seed={title.length} className="h-20 w-full md:h-28" />
+        <LightCurveSketch
+          dip={sketch === 'dip'}
+          shape="strip"
+          seed={title.length}
+          className="mx-auto h-auto w-full max-w-3xl"
+        />
       </div>
       <div className="flex flex-col gap-4 px-5 py-6 md:px-8 md:py-8">
         <h2 className="text-xl font-semibold text-ink">{title}</h2>

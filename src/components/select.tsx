@@ -9,5 +9,11 @@ const chevron =
   "url(\"data:image/svg+xml,%3Csvg xmlns='http://www.w3.org/2000/svg' viewBox='0 0 12 8'%3E%3Cpath d='M1 1l5 5 5-5' fill='none' stroke='%231d2330' stroke-width='1.8'/%3E%3C/svg%3E\")";
 
 export function Select({ className = '', style, ...rest }: SelectHTMLAttributes<HTMLSelectElement>) {
-  return <select {...rest} style={{ backgroundImage: chevron, ...style }} className={`${selectClasses} ${className}`} />;
+  return (
+    <select
+      {...rest}
+      style={{ backgroundImage: chevron, ...style }}
+      className={`${selectClasses} ${className}`}
+    />
+  );
 }

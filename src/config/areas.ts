@@ -6,24 +6,49 @@ export type AreaKey = 'deck' | 'record' | 'desk' | 'lab' | 'admin';
 export interface Area {
   key: AreaKey;
   label: string;
+  /** How the area is named inside a sentence: "the Desk", but "Admin" and "My record". */
+  inSentence: string;
   href: string;
   /** The least able role that may use the area; every role above it may too. */
   minRole: Role;
-  summary: string;
 }
 
 export const areas: readonly Area[] = [
-  { key: 'deck', label: 'Deck', href: paths.deck.getHref(), minRole: 'volunteer', summary: 'Judge snippets' },
+  {
+    key: 'deck',
+    inSentence: 'the Deck',
+    label: 'Deck',
+    href: paths.deck.getHref(),
+    minRole: 'volunteer',
+  },
   {
     key: 'record',
+    inSentence: 'My record',
     label: 'My record',
     href: paths.record.getHref(),
     minRole: 'volunteer',
-    summary: 'Your account and verdicts',
   },
-  { key: 'desk', label: 'Desk', href: paths.desk.getHref(), minRole: 'moderator', summary: 'Settle split snippets' },
-  { key: 'lab', label: 'Lab', href: paths.lab.getHref(), minRole: 'scientist', summary: 'Run campaigns' },
-  { key: 'admin', label: 'Admin', href: paths.admin.getHref(), minRole: 'admin', summary: 'People and roles' },
+  {
+    key: 'desk',
+    inSentence: 'the Desk',
+    label: 'Desk',
+    href: paths.desk.getHref(),
+    minRole: 'moderator',
+  },
+  {
+    key: 'lab',
+    inSentence: 'the Lab',
+    label: 'Lab',
+    href: paths.lab.getHref(),
+    minRole: 'scientist',
+  },
+  {
+    key: 'admin',
+    inSentence: 'Admin',
+    label: 'Admin',
+    href: paths.admin.getHref(),
+    minRole: 'admin',
+  },
 ];
 
 export function areaByKey(key: AreaKey): Area {

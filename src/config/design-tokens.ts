@@ -74,8 +74,8 @@ export const contrastPairs: readonly ContrastPair[] = [
 ];
 
 export const fonts = {
-  sans: "'IBM Plex Sans', ui-sans-serif, system-ui, sans-serif",
-  mono: "'IBM Plex Mono', ui-monospace, 'SFMono-Regular', monospace",
+  sans: '"IBM Plex Sans", ui-sans-serif, system-ui, sans-serif',
+  mono: '"IBM Plex Mono", ui-monospace, "SFMono-Regular", monospace',
 } as const;
 
 /** Type scale in rem, each with its line height: a 1.2-ish ratio, roomier at the small end for reading. */

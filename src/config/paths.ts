@@ -2,8 +2,8 @@ import { env } from '@/config/env';
 
 /** A same-origin path we are willing to send someone back to after signing in. */
 export function safeRedirect(target: string | null | undefined, fallback: string): string {
-  if (!target || !target.startsWith('/') || target.startsWith('//')) return fallback;
-  return target;
+  if (target?.startsWith('/') && !target.startsWith('//')) return target;
+  return fallback;
 }
 
 function withRedirect(path: string, redirectTo?: string): string {

@@ -70,7 +70,10 @@ function buildUrl(path: string, query: RequestOptions['query']): string {
   return text ? `${path}?${text}` : path;
 }
 
-async function send(url: string, init: { method: Method; body?: unknown; signal?: AbortSignal; csrf?: string }) {
+async function send(
+  url: string,
+  init: { method: Method; body?: unknown; signal?: AbortSignal; csrf?: string },
+) {
   const headers: Record<string, string> = { Accept: 'application/json' };
   if (init.body !== undefined) headers['Content-Type'] = 'application/json';
   if (init.csrf) headers['X-CSRF-Token'] = init.csrf;
@@ -141,10 +144,18 @@ export async function apiRequest(path: string, options: RequestOptions = {}): Pr
 export const api = {
   get: <T>(path: string, schema: z.ZodType<T>, options: Omit<RequestOptions, 'method' | 'body'> = {}) =>
     apiRequest(path, { ...options, method: 'GET' }).then((body) => schema.parse(body)),
-  post: <T>(path: string, schema: z.ZodType<T>, body?: unknown, options: Omit<RequestOptions, 'method'> = {}) =>
-    apiRequest(path, { ...options, method: 'POST', body }).then((data) => schema.parse(data)),
-  patch: <T>(path: string, schema: z.ZodType<T>, body?: unknown, options: Omit<RequestOptions, 'method'> = {}) =>
-    apiRequest(path, { ...options, method: 'PATCH', body }).then((data) => schema.parse(data)),
+  post: <T>(
+    path: string,
+    schema: z.ZodType<T>,
+    body?: unknown,
+    options: Omit<RequestOptions, 'method'> = {},
+  ) => apiRequest(path, { ...options, method: 'POST', body }).then((data) => schema.parse(data)),
+  patch: <T>(
+    path: string,
+    schema: z.ZodType<T>,
+    body?: unknown,
+    options: Omit<RequestOptions, 'method'> = {},
+  ) => apiRequest(path, { ...options, method: 'PATCH', body }).then((data) => schema.parse(data)),
   delete: (path: string, options: Omit<RequestOptions, 'method'> = {}) =>
     apiRequest(path, { ...options, method: 'DELETE' }).then(() => undefined),
 };

@@ -18,6 +18,7 @@ export const personSchema = z.object({
   role: z.enum(roles),
   suspended: z.boolean(),
   newsletterOptIn: z.boolean(),
+  creditByName: z.boolean(),
   createdAt: z.string(),
 });
 

@@ -198,3 +198,28 @@ describe('sessions', () => {
     expect((await browser.get('/api/auth/me')).status).toBe(401);
   });
 });
+
+describe('PATCH /api/auth/me', () => {
+  it('lets a person opt in and out of the newsletter and records each consent change', async () => {
+    const { browser, person } = await signedIn(test, 'volunteer');
+    const optIn = await browser.patch('/api/auth/me', { newsletterOptIn: true });
+    expect(optIn.status).toBe(200);
+    expect(optIn.body.person.newsletterOptIn).toBe(true);
+    const row = await test.db('people').where({ id: person.id }).first();
+    expect(row.newsletter_opt_in_at).toBeTruthy();
+    const optOut = await browser.patch('/api/auth/me', { newsletterOptIn: false, displayName: 'Renamed' });
+    expect(optOut.body.person).toMatchObject({ newsletterOptIn: false, displayName: 'Renamed' });
+    const consents = await test
+      .db('audit_log')
+      .where({ entity_id: String(person.id), action: 'person.consent_changed' });
+    expect(consents).toHaveLength(2);
+  });
+
+  it('refuses a visitor (401), an empty change and a change of role (400)', async () => {
+    expect((await new Browser(test.app).patch('/api/auth/me', { newsletterOptIn: true })).status).toBe(401);
+    const { browser } = await signedIn(test, 'volunteer');
+    expect((await browser.patch('/api/auth/me', {})).status).toBe(400);
+    const promote = await browser.patch('/api/auth/me', { role: 'admin' });
+    expect(promote.status).toBe(400);
+  });
+});

@@ -4,6 +4,7 @@ import { csrf } from '../../auth/csrf';
 import type { PersonRow } from '../../db/people';
 import { signUp } from '../../services/auth/sign-up';
 import { toPersonView } from '../../services/people/person-view';
+import { updateOwnAccount } from '../../services/people/update-own-account';
 import type { AppDeps } from '../app-deps';
 import { defineRoute } from '../define-route';
 
@@ -22,6 +23,15 @@ const signUpBody = z.object({
     .max(1024, 'At most 1024 characters'),
   newsletterOptIn: z.boolean().default(false),
 });
+
+const ownAccountChange = z
+  .object({
+    displayName: signUpBody.shape.displayName.optional(),
+    newsletterOptIn: z.boolean().optional(),
+    creditByName: z.boolean().optional(),
+  })
+  .strict()
+  .refine((change) => Object.keys(change).length > 0, { message: 'Give at least one change', path: ['_'] });
 
 const signInBody = z.object({
   email: z.string('Enter your e-mail address').trim().min(1, 'Enter your e-mail address').max(254),
@@ -97,5 +107,15 @@ export const authRoutes = (deps: AppDeps) => [
     access: 'signed-in',
     summary: 'The signed-in person',
     handle: async ({ person }) => ({ person: toPersonView(person!) }),
+  }),
+  defineRoute({
+    method: 'patch',
+    path: '/auth/me',
+    access: 'signed-in',
+    summary: 'Change your display name, newsletter opt-in, or whether you are named on candidates',
+    body: ownAccountChange,
+    handle: async ({ person, body }) => ({
+      person: toPersonView(await updateOwnAccount(deps.db, person!.id, body)),
+    }),
   }),
 ];

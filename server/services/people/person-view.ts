@@ -9,6 +9,7 @@ export interface PersonView {
   role: Role;
   suspended: boolean;
   newsletterOptIn: boolean;
+  creditByName: boolean;
   createdAt: string;
 }
 
@@ -20,6 +21,7 @@ export function toPersonView(person: PersonRow): PersonView {
     role: person.role,
     suspended: person.suspendedAt !== null,
     newsletterOptIn: person.newsletterOptIn,
+    creditByName: person.creditByName,
     createdAt: person.createdAt,
   };
 }

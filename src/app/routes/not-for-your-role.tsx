@@ -4,7 +4,9 @@ import { type Area, areaByKey } from '@/config/areas';
 import { type Person, roleLabels, roles } from '@/lib/person';
 
 function listRoles(area: Area): string {
-  const allowed = roles.slice(roles.indexOf(area.minRole)).map((role) => `${roleLabels[role].toLowerCase()}s`);
+  const allowed = roles
+    .slice(roles.indexOf(area.minRole))
+    .map((role) => `${roleLabels[role].toLowerCase()}s`);
   if (allowed.length === 1) return allowed[0] ?? '';
   return `${allowed.slice(0, -1).join(', ')} and ${allowed.at(-1)}`;
 }
@@ -14,15 +16,20 @@ export function NotForYourRole({ area, person }: { area: Area; person: Person })
   return (
     <div className="mx-auto flex max-w-2xl flex-col gap-6">
       <EmptyState
-        title={`The ${area.label} is not for your role`}
+        title={`${capitalise(area.inSentence)} is not for your role`}
         action={<ButtonLink to={deck.href}>Go to the Deck</ButtonLink>}
       >
         <p>
-          The {area.label} is for {listRoles(area)}. You are signed in as {person.displayName}, with the role{' '}
+          {capitalise(area.inSentence)} is for {listRoles(area)}. You are signed in as {person.displayName},
+          with the role{' '}
           <strong className="font-semibold text-ink">{roleLabels[person.role].toLowerCase()}</strong>. If you
           think you should have access, ask an admin of your team.
         </p>
       </EmptyState>
     </div>
   );
+}
+
+function capitalise(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
 }

@@ -13,8 +13,8 @@ export function NotFoundRoute() {
         action={<ButtonLink to={paths.home.getHref()}>Back to the start</ButtonLink>}
       >
         <p>
-          There is no page at <code className="tabular break-all text-ink">{location.pathname}</code>. The link
-          may be old, or the address mistyped.
+          There is no page at <code className="tabular break-all text-ink">{location.pathname}</code>. The
+          link may be old, or the address mistyped.
         </p>
       </EmptyState>
     </div>

@@ -17,8 +17,8 @@ export function RootErrorBoundary() {
       <div className="flex flex-col gap-3 rounded-lg border border-line bg-surface p-6">
         <h1 className="text-2xl font-semibold">Something went wrong</h1>
         <p className="text-muted">
-          Dipdeck hit a problem it did not expect. What you already sent is safe on the server; reloading the page
-          usually helps.
+          Dipdeck hit a problem it did not expect. What you already sent is safe on the server; reloading the
+          page usually helps.
         </p>
         <p className="tabular break-all rounded-md bg-paper px-3 py-2 text-sm text-slate">{detail}</p>
         <div>

@@ -272,7 +272,12 @@ function PersonRow({
   );
 }
 
-function SuspendButton(props: { suspended: boolean; name: string; busy: boolean; onClick: () => void }): ReactNode {
+function SuspendButton(props: {
+  suspended: boolean;
+  name: string;
+  busy: boolean;
+  onClick: () => void;
+}): ReactNode {
   const verb = props.suspended ? 'Restore' : 'Suspend';
   return (
     <Button

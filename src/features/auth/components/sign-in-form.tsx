@@ -41,7 +41,10 @@ export function SignInForm({ redirectTo, onSignedIn }: SignInFormProps) {
       lead={
         <>
           New to Dipdeck?{' '}
-          <Link to={paths.signUp.getHref(redirectTo)} className="font-medium text-ink underline underline-offset-4">
+          <Link
+            to={paths.signUp.getHref(redirectTo)}
+            className="font-medium text-ink underline underline-offset-4"
+          >
             Create an account
           </Link>
         </>
@@ -51,7 +54,9 @@ export function SignInForm({ redirectTo, onSignedIn }: SignInFormProps) {
         {serverError && !Object.keys(serverError.fields).some((field) => knownFields.includes(field)) ? (
           <Alert tone="danger">{serverError.message}</Alert>
         ) : null}
-        {signIn.error && !serverError ? <Alert tone="danger">Something went wrong. Please try again.</Alert> : null}
+        {signIn.error && !serverError ? (
+          <Alert tone="danger">Something went wrong. Please try again.</Alert>
+        ) : null}
         <TextField
           label="E-mail"
           type="email"

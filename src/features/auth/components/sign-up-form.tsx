@@ -51,7 +51,10 @@ export function SignUpForm({ redirectTo, onSignedUp }: SignUpFormProps) {
       lead={
         <>
           Already have one?{' '}
-          <Link to={paths.signIn.getHref(redirectTo)} className="font-medium text-ink underline underline-offset-4">
+          <Link
+            to={paths.signIn.getHref(redirectTo)}
+            className="font-medium text-ink underline underline-offset-4"
+          >
             Sign in
           </Link>
         </>
@@ -61,7 +64,9 @@ export function SignUpForm({ redirectTo, onSignedUp }: SignUpFormProps) {
         {serverError && !Object.keys(serverError.fields).some((field) => knownFields.includes(field)) ? (
           <Alert tone="danger">{serverError.message}</Alert>
         ) : null}
-        {signUp.error && !serverError ? <Alert tone="danger">Something went wrong. Please try again.</Alert> : null}
+        {signUp.error && !serverError ? (
+          <Alert tone="danger">Something went wrong. Please try again.</Alert>
+        ) : null}
         <TextField
           label="E-mail"
           type="email"

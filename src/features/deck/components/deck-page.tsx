@@ -7,7 +7,7 @@ export function DeckPage() {
       <PageHeader
         eyebrow="Deck"
         title="Judge snippets"
-        description="Each card is a few hours of one star's brightness. Say whether it dips, stays flat, or you are unsure; every verdict counts towards the consensus."
+        description="Each card is a few hours of one star’s brightness. Say whether it dips, stays flat, or you are unsure; every verdict counts towards the consensus."
       />
       <EmptyState
         sketch="dip"

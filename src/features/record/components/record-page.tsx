@@ -3,6 +3,7 @@ import { Badge } from '@/components/badge';
 import { EmptyState } from '@/components/empty-state';
 import { PageHeader } from '@/components/page-header';
 import { type Person, roleLabels } from '@/lib/person';
+import { EmailPreferences } from './email-preferences';
 
 const joinedFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
 
@@ -21,36 +22,39 @@ export function RecordPage({ person }: { person: Person }) {
       />
 
       <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
-        <section aria-labelledby="account-heading" className="rounded-lg border border-line bg-surface">
-          <h2 id="account-heading" className="border-b border-line px-5 py-4 text-lg font-semibold">
-            Account
-          </h2>
-          <dl className="divide-y divide-line">
-            <Row term="Display name">{person.displayName}</Row>
-            <Row term="E-mail">
-              <span className="break-all">{person.email}</span>
-            </Row>
-            <Row term="Role">
-              <Badge tone="amber">{roleLabels[person.role]}</Badge>
-            </Row>
-            <Row term="Newsletter">
-              {person.newsletterOptIn ? (
-                <span className="flex flex-col items-end gap-0.5 text-right">
-                  <Badge tone="success">Opted in</Badge>
-                  <span className="text-sm text-muted">You get the occasional newsletter.</span>
-                </span>
-              ) : (
-                <span className="flex flex-col items-end gap-0.5 text-right">
-                  <Badge tone="slate">Not opted in</Badge>
-                  <span className="text-sm text-muted">We send you no newsletter.</span>
-                </span>
-              )}
-            </Row>
-            <Row term="Member since">
-              <span className="tabular text-slate">{formatJoined(person.createdAt)}</span>
-            </Row>
-          </dl>
-        </section>
+        <div className="flex flex-col gap-6 self-start">
+          <section aria-labelledby="account-heading" className="rounded-lg border border-line bg-surface">
+            <h2 id="account-heading" className="border-b border-line px-5 py-4 text-lg font-semibold">
+              Account
+            </h2>
+            <dl className="divide-y divide-line">
+              <Row term="Display name">{person.displayName}</Row>
+              <Row term="E-mail">
+                <span className="break-all">{person.email}</span>
+              </Row>
+              <Row term="Role">
+                <Badge tone="amber">{roleLabels[person.role]}</Badge>
+              </Row>
+              <Row term="Newsletter">
+                {person.newsletterOptIn ? (
+                  <span className="flex flex-col items-end gap-0.5 text-right">
+                    <Badge tone="success">Opted in</Badge>
+                    <span className="text-sm text-muted">You get the occasional newsletter.</span>
+                  </span>
+                ) : (
+                  <span className="flex flex-col items-end gap-0.5 text-right">
+                    <Badge tone="slate">Not opted in</Badge>
+                    <span className="text-sm text-muted">We send you no newsletter.</span>
+                  </span>
+                )}
+              </Row>
+              <Row term="Member since">
+                <span className="tabular text-sm text-slate">{formatJoined(person.createdAt)}</span>
+              </Row>
+            </dl>
+          </section>
+          <EmailPreferences person={person} />
+        </div>
 
         <EmptyState
           title="No verdicts yet"
@@ -69,7 +73,7 @@ export function RecordPage({ person }: { person: Person }) {
 
 function Row({ term, children }: { term: string; children: ReactNode }) {
   return (
-    <div className="flex items-start justify-between gap-4 px-5 py-3.5">
+    <div className="flex items-center justify-between gap-4 px-5 py-3.5">
       <dt className="text-sm font-medium text-muted">{term}</dt>
       <dd className="text-right text-base text-ink">{children}</dd>
     </div>

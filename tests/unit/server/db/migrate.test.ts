@@ -74,14 +74,17 @@ describe('migrations on SQLite', () => {
 // .ci/run starts Debian's PostgreSQL and sets TEST_DATABASE_URL; in CI its absence is a failure.
 const postgresUrl = process.env.TEST_DATABASE_URL;
 describe('migrations on PostgreSQL', () => {
-  it.runIf(postgresUrl || process.env.CI)('run up, down and up again cleanly (the same migrations)', async () => {
-    expect(postgresUrl, 'CI must provide TEST_DATABASE_URL').toBeTruthy();
-    const postgres = createDb({ databaseUrl: postgresUrl, sqliteFile: '' });
-    try {
-      await upDownUp(postgres, postgresTables);
-      await rollbackAll(postgres);
-    } finally {
-      await postgres.destroy();
-    }
-  });
+  it.runIf(postgresUrl || process.env.CI)(
+    'run up, down and up again cleanly (the same migrations)',
+    async () => {
+      expect(postgresUrl, 'CI must provide TEST_DATABASE_URL').toBeTruthy();
+      const postgres = createDb({ databaseUrl: postgresUrl, sqliteFile: '' });
+      try {
+        await upDownUp(postgres, postgresTables);
+        await rollbackAll(postgres);
+      } finally {
+        await postgres.destroy();
+      }
+    },
+  );
 });

@@ -1,0 +1,28 @@
+import { createBrowserRouter } from 'react-router-dom';
+import { AppLayout } from '@/app/app-layout';
+import { AdminRoute, DeckRoute, DeskRoute, LabRoute, RecordRoute } from '@/app/routes/areas';
+import { HomeRoute } from '@/app/routes/home';
+import { NotFoundRoute } from '@/app/routes/not-found';
+import { RootErrorBoundary } from '@/app/routes/root-error-boundary';
+import { SignInRoute } from '@/app/routes/sign-in';
+import { SignUpRoute } from '@/app/routes/sign-up';
+import { paths } from '@/config/paths';
+
+export const router = createBrowserRouter([
+  {
+    path: paths.home.path,
+    Component: AppLayout,
+    ErrorBoundary: RootErrorBoundary,
+    children: [
+      { index: true, Component: HomeRoute },
+      { path: paths.signIn.path, Component: SignInRoute },
+      { path: paths.signUp.path, Component: SignUpRoute },
+      { path: paths.deck.path, Component: DeckRoute },
+      { path: paths.record.path, Component: RecordRoute },
+      { path: paths.desk.path, Component: DeskRoute },
+      { path: paths.lab.path, Component: LabRoute },
+      { path: paths.admin.path, Component: AdminRoute },
+      { path: '*', Component: NotFoundRoute },
+    ],
+  },
+]);

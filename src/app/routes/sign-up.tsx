@@ -1,0 +1,17 @@
+import { Navigate, useNavigate, useSearchParams } from 'react-router-dom';
+import { Loading } from '@/components/loading';
+import { paths, safeRedirect } from '@/config/paths';
+import { useMe } from '@/features/auth/api/get-me';
+import { SignUpForm } from '@/features/auth/components/sign-up-form';
+
+export function SignUpRoute() {
+  const [search] = useSearchParams();
+  const navigate = useNavigate();
+  const me = useMe();
+  const redirectTo = search.get('redirectTo') ?? undefined;
+  const destination = safeRedirect(redirectTo, paths.deck.getHref());
+
+  if (me.isPending) return <Loading />;
+  if (me.data) return <Navigate to={destination} replace />;
+  return <SignUpForm redirectTo={redirectTo} onSignedUp={() => navigate(destination, { replace: true })} />;
+}

@@ -1,0 +1,21 @@
+import { describe, expect, it } from 'vitest';
+import { paths, safeRedirect } from '@/config/paths';
+
+describe('safeRedirect', () => {
+  it('when the target is a path on this site, returns it', () => {
+    expect(safeRedirect('/admin?q=ada', '/deck')).toBe('/admin?q=ada');
+  });
+
+  it('when the target is another origin or protocol-relative, returns the fallback', () => {
+    expect(safeRedirect('https://elsewhere.example/', '/deck')).toBe('/deck');
+    expect(safeRedirect('//elsewhere.example/', '/deck')).toBe('/deck');
+    expect(safeRedirect(null, '/deck')).toBe('/deck');
+  });
+});
+
+describe('paths', () => {
+  it('carries the page to return to in the sign-in link', () => {
+    expect(paths.signIn.getHref('/desk')).toBe('/sign-in?redirectTo=%2Fdesk');
+    expect(paths.signIn.getHref()).toBe('/sign-in');
+  });
+});
