@@ -37,10 +37,6 @@ beforeEach(async () => {
   page = await browser.context.newPage();
   await page.setViewportSize(desktop);
   takeErrors = watchPageErrors(page, () => expected);
-  page.on(
-    'response',
-    (r) => r.url().includes('/api/') && console.info('RESP', r.request().method(), r.url(), r.status()),
-  );
 });
 
 afterEach(async () => {
