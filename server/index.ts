@@ -1,4 +1,7 @@
 import type { AddressInfo } from 'node:net';
+import { createQueues } from '../worker/queues';
+import { createRedisConnection } from '../worker/redis-connection';
+import { startProcessors } from '../worker/start-processors';
 import { ConfigError, loadConfig } from './config';
 import { createDb } from './db/knex';
 import { createApp } from './http/app';
@@ -11,7 +14,13 @@ async function main(): Promise<void> {
   const db = createDb(config);
   await prepareDatabase(db, config, logger);
 
-  const { app } = createApp({ config, db, logger });
+  const queues = createQueues(createRedisConnection(config));
+  if (queues.backend === 'embedded') {
+    // The embedded store lives in this process, so this process is also the worker.
+    await startProcessors(queues, { config, db, logger });
+  }
+
+  const { app } = createApp({ config, db, logger, queues });
   const server = app.listen(config.port);
   await new Promise<void>((resolve, reject) => {
     server.once('listening', resolve);
@@ -19,21 +28,29 @@ async function main(): Promise<void> {
   });
   const { port } = server.address() as AddressInfo;
   console.info(`Dipdeck is listening on http://localhost:${port}`);
+  console.info(
+    queues.backend === 'embedded'
+      ? 'Background jobs run in this process (embedded queues; set REDIS_URL to scale out).'
+      : 'Background jobs go to Redis: start workers with `npm run worker`.',
+  );
   if (config.demo) console.info(demoAccountsBanner());
 
   let stopping = false;
-  const stop = (signal: string) => {
+  const stop = async (signal: string) => {
     if (stopping) return;
     stopping = true;
     logger.info({ signal }, 'shutting down');
-    server.close(() => {
-      db.destroy().finally(() => process.exit(0));
+    setTimeout(() => process.exit(1), 15_000).unref();
+    await new Promise<void>((resolve) => {
+      server.close(() => resolve());
+      server.closeIdleConnections();
     });
-    server.closeIdleConnections();
-    setTimeout(() => process.exit(1), 10_000).unref();
+    await queues.close().catch((error: unknown) => logger.error({ err: error }, 'closing the queues failed'));
+    await db.destroy();
+    process.exit(0);
   };
-  process.on('SIGTERM', () => stop('SIGTERM'));
-  process.on('SIGINT', () => stop('SIGINT'));
+  process.on('SIGTERM', () => void stop('SIGTERM'));
+  process.on('SIGINT', () => void stop('SIGINT'));
 }
 
 main().catch((error: unknown) => {

@@ -17,8 +17,7 @@ export function sessionMiddleware(config: Config, db: Db, secret: string): Reque
     knex: db,
     tableName: 'sessions',
     createTable: false,
-    cleanupInterval: config.nodeEnv === 'test' ? 0 : 15 * 60_000,
-    onDbCleanupError: () => {},
+    cleanupInterval: 0, // the housekeeping job deletes expired sessions (worker/processors/housekeeping.ts)
   });
   return session({
     name: sessionCookieName(config),

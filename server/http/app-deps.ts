@@ -1,4 +1,5 @@
 import type passport from 'passport';
+import type { Queues } from '../../worker/queues';
 import type { Config } from '../config';
 import type { Db } from '../db/knex';
 import type { Logger } from '../logger';
@@ -12,6 +13,6 @@ export interface AppDeps {
   logger: Logger;
   passport: passport.PassportStatic;
   sessionCookie: string;
-  /** How the background queues are doing; supplied by worker/queues.ts when queues run. */
-  queueStatus: () => Promise<ComponentStatus>;
+  /** The background queues, to enqueue work and report on jobs; absent in a bare test app. */
+  queues: Queues | undefined;
 }

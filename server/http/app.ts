@@ -1,13 +1,14 @@
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
+import type { Queues } from '../../worker/queues';
 import { createPassport } from '../auth/passport';
 import { sessionCookieName, sessionMiddleware } from '../auth/session';
 import { resolveSessionSecret } from '../auth/session-secret';
 import type { Config } from '../config';
 import type { Db } from '../db/knex';
 import { createLogger, type Logger } from '../logger';
-import type { AppDeps, ComponentStatus } from './app-deps';
+import type { AppDeps } from './app-deps';
 import { mountRoute } from './define-route';
 import { apiNotFound, errorHandler } from './error-handler';
 import { routeTable } from './route-table';
@@ -17,7 +18,7 @@ export interface AppOptions {
   config: Config;
   db: Db;
   logger?: Logger;
-  queueStatus?: () => Promise<ComponentStatus>;
+  queues?: Queues;
 }
 
 /** Builds the Express app without listening, so that tests drive it with supertest. */
@@ -30,7 +31,7 @@ export function createApp(options: AppOptions): { app: Express; deps: AppDeps } 
     logger,
     passport: createPassport(db, config),
     sessionCookie: sessionCookieName(config),
-    queueStatus: options.queueStatus ?? (async () => ({ status: 'not_configured' })),
+    queues: options.queues,
   };
 
   const app = express();

@@ -9,7 +9,7 @@ export const healthRoutes = (deps: AppDeps) => [
     access: 'public',
     summary: 'Whether the database and the queues answer',
     handle: async ({ res }) => {
-      const health = await checkHealth(deps.db, deps.queueStatus);
+      const health = await checkHealth(deps.db, deps.queues);
       res.status(health.database.status === 'ok' ? 200 : 503).json(health);
     },
   }),

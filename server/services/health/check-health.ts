@@ -1,3 +1,4 @@
+import type { Queues } from '../../../worker/queues';
 import type { Db } from '../../db/knex';
 import type { ComponentStatus } from '../../http/app-deps';
 
@@ -7,12 +8,18 @@ export interface Health {
   queue: ComponentStatus;
 }
 
-export async function checkHealth(db: Db, queueStatus: () => Promise<ComponentStatus>): Promise<Health> {
+async function queueStatus(queues: Queues | undefined): Promise<ComponentStatus> {
+  if (!queues) return { status: 'not_configured' };
+  await queues.ping();
+  return { status: 'ok', detail: queues.backend };
+}
+
+export async function checkHealth(db: Db, queues: Queues | undefined): Promise<Health> {
   const database: ComponentStatus = await db
     .raw('select 1')
     .then(() => ({ status: 'ok' as const }))
     .catch((error: Error) => ({ status: 'down' as const, detail: error.message }));
-  const queue = await queueStatus().catch((error: Error) => ({
+  const queue = await queueStatus(queues).catch((error: Error) => ({
     status: 'down' as const,
     detail: error.message,
   }));

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -11,6 +12,10 @@ import { createDb, type Db } from '../../../server/db/knex';
 import { migrateLatest } from '../../../server/db/migrate';
 import type { PersonRow } from '../../../server/db/people';
 import { createApp } from '../../../server/http/app';
+import { createLogger } from '../../../server/logger';
+import { createQueues, type Queues } from '../../../worker/queues';
+import { createRedisConnection } from '../../../worker/redis-connection';
+import { startProcessors } from '../../../worker/start-processors';
 
 export const TEST_PASSWORD = 'a long test passphrase';
 
@@ -19,20 +24,34 @@ export interface TestApp {
   db: Db;
   config: Config;
   dataDir: string;
+  /** Embedded queues with the real processors running, when asked for. */
+  queues: Queues | undefined;
+}
+
+export interface TestAppOptions {
+  env?: Record<string, string>;
+  /** Run the embedded queues and processors in the test process, as `npm start` does. */
+  queues?: boolean;
 }
 
 /** A real app on a fresh SQLite file in its own temporary directory, removed after the test file. */
-export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
+export async function createTestApp(options: TestAppOptions = {}): Promise<TestApp> {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'dipdeck-api-'));
-  const config = loadConfig({ NODE_ENV: 'test', DATA_DIR: dataDir, DIPDECK_DEMO: '0', ...env });
+  const config = loadConfig({ NODE_ENV: 'test', DATA_DIR: dataDir, DIPDECK_DEMO: '0', ...options.env });
   const db = createDb(config);
   await migrateLatest(db);
-  const { app } = createApp({ config, db });
+  let queues: Queues | undefined;
+  if (options.queues) {
+    queues = createQueues(createRedisConnection({ redisUrl: undefined }, `api-${randomUUID()}`));
+    await startProcessors(queues, { config, db, logger: createLogger(config) });
+  }
+  const { app } = createApp({ config, db, queues });
   afterAll(async () => {
+    await queues?.close();
     await db.destroy();
     fs.rmSync(dataDir, { recursive: true, force: true });
   });
-  return { app, db, config, dataDir };
+  return { app, db, config, dataDir, queues };
 }
 
 export type Agent = ReturnType<typeof request.agent>;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { paths, safeRedirect } from '@/config/paths';
+import { apiPaths, paths, safeRedirect } from '@/config/paths';
 
 describe('safeRedirect', () => {
   it('when the target is a path on this site, returns it', () => {
@@ -17,5 +17,12 @@ describe('paths', () => {
   it('carries the page to return to in the sign-in link', () => {
     expect(paths.signIn.getHref('/desk')).toBe('/sign-in?redirectTo=%2Fdesk');
     expect(paths.signIn.getHref()).toBe('/sign-in');
+  });
+});
+
+describe('apiPaths', () => {
+  it('keeps a job id, which names its queue after a colon, in one path segment', () => {
+    expect(apiPaths.retryJob('mail:12')).toBe('/api/admin/jobs/mail%3A12/retry');
+    expect(apiPaths.retryJob('a/b')).toBe('/api/admin/jobs/a%2Fb/retry');
   });
 });

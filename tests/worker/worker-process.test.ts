@@ -1,0 +1,95 @@
+// `npm run worker` as a separate process on real Redis: the server only enqueues, workers take the jobs.
+import { type ChildProcess, spawn } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import type Bull from 'bull';
+import { afterAll, describe, expect, it } from 'vitest';
+import { createQueues, enqueue, type Queues } from '../../worker/queues';
+import { createRedisConnection } from '../../worker/redis-connection';
+import { TEST_REDIS_URL } from './support/backends';
+
+const repo = path.resolve(import.meta.dirname, '../..');
+const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'dipdeck-worker-'));
+const children: ChildProcess[] = [];
+afterAll(() => {
+  for (const child of children) if (child.exitCode === null) child.kill('SIGKILL');
+  fs.rmSync(dataDir, { recursive: true, force: true });
+});
+
+function startWorker(env: Record<string, string>): { child: ChildProcess; output: () => string } {
+  let output = '';
+  const child = spawn(process.execPath, ['--import', 'tsx', 'worker/index.ts'], {
+    cwd: repo,
+    env: { ...process.env, NODE_ENV: 'test', DATA_DIR: dataDir, LOG_LEVEL: 'warn', ...env },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  child.stdout!.on('data', (chunk) => {
+    output += chunk;
+  });
+  child.stderr!.on('data', (chunk) => {
+    output += chunk;
+  });
+  children.push(child);
+  return { child, output: () => output };
+}
+
+const exited = (child: ChildProcess) =>
+  new Promise<number | null>((resolve) => {
+    if (child.exitCode !== null) resolve(child.exitCode);
+    else child.once('exit', (code) => resolve(code));
+  });
+
+async function ready(worker: { output: () => string }, ms = 20_000): Promise<void> {
+  const deadline = Date.now() + ms;
+  while (!worker.output().includes('is taking jobs')) {
+    if (Date.now() > deadline) throw new Error(`worker did not start: ${worker.output()}`);
+    await new Promise((resolve) => setTimeout(resolve, 100));
+  }
+}
+
+describe('npm run worker', () => {
+  it('refuses to start without REDIS_URL, and says why', async () => {
+    const worker = startWorker({ REDIS_URL: '' });
+    expect(await exited(worker.child)).toBe(1);
+    expect(worker.output()).toMatch(/needs REDIS_URL/);
+  });
+
+  describe.runIf(TEST_REDIS_URL)('on real Redis', () => {
+    let queues: Queues;
+    afterAll(async () => {
+      await queues?.byKey.housekeeping.obliterate({ force: true }).catch(() => {});
+      await queues?.close();
+    });
+
+    it('two worker processes share the jobs, each job runs once, and SIGTERM stops them cleanly', async () => {
+      const workers = [
+        startWorker({ REDIS_URL: TEST_REDIS_URL! }),
+        startWorker({ REDIS_URL: TEST_REDIS_URL! }),
+      ];
+      await Promise.all(workers.map((worker) => ready(worker)));
+      // This process plays the server: it only enqueues.
+      queues = createQueues(createRedisConnection({ redisUrl: TEST_REDIS_URL }));
+      const housekeeping = queues.byKey.housekeeping;
+      const completions: Bull.JobId[] = [];
+      const allDone = new Promise<void>((resolve) =>
+        housekeeping.on('global:completed', (jobId: Bull.JobId) => {
+          completions.push(jobId);
+          if (completions.length === 30) resolve();
+        }),
+      );
+      await housekeeping.isReady();
+      const refs = await Promise.all(
+        Array.from({ length: 30 }, () => enqueue(queues, 'housekeeping', 'sweep', {})),
+      );
+      await allDone;
+      await new Promise((resolve) => setTimeout(resolve, 300));
+      expect(new Set(completions).size).toBe(30);
+      expect(completions).toHaveLength(30);
+      expect(refs.every((ref) => ref.startsWith('housekeeping:'))).toBe(true);
+
+      for (const worker of workers) worker.child.kill('SIGTERM');
+      expect(await Promise.all(workers.map((worker) => exited(worker.child)))).toEqual([0, 0]);
+    });
+  });
+});
