@@ -1,6 +1,15 @@
 import { createBrowserRouter } from 'react-router-dom';
 import { AppLayout } from '@/app/app-layout';
-import { AdminRoute, DeckRoute, DeskRoute, LabRoute, RecordRoute } from '@/app/routes/areas';
+import {
+  AdminIndexRoute,
+  AdminPeopleRoute,
+  AdminQueuesRoute,
+  AdminRoute,
+  DeckRoute,
+  DeskRoute,
+  LabRoute,
+  RecordRoute,
+} from '@/app/routes/areas';
 import { HomeRoute } from '@/app/routes/home';
 import { NotFoundRoute } from '@/app/routes/not-found';
 import { RootErrorBoundary } from '@/app/routes/root-error-boundary';
@@ -21,7 +30,15 @@ export const router = createBrowserRouter([
       { path: paths.record.path, Component: RecordRoute },
       { path: paths.desk.path, Component: DeskRoute },
       { path: paths.lab.path, Component: LabRoute },
-      { path: paths.admin.path, Component: AdminRoute },
+      {
+        path: paths.admin.path,
+        Component: AdminRoute,
+        children: [
+          { index: true, Component: AdminIndexRoute },
+          { path: paths.adminPeople.path, Component: AdminPeopleRoute },
+          { path: paths.adminQueues.path, Component: AdminQueuesRoute },
+        ],
+      },
       { path: '*', Component: NotFoundRoute },
     ],
   },

@@ -40,25 +40,52 @@ export function TableBody({ children }: { children: ReactNode }) {
   return <tbody className="flex flex-col gap-3 md:table-row-group">{children}</tbody>;
 }
 
-export function Tr({ children }: { children: ReactNode }) {
+const cardLayouts = {
+  stack: 'flex flex-col gap-2',
+  // For rows of short numbers: two cells a line keeps the card about as tall as the row is wide.
+  pairs: 'grid grid-cols-2 gap-x-6 gap-y-2',
+} as const;
+
+const rowAlignments = {
+  middle: '',
+  // Rows whose cells can grow (an opened stack trace) read better when every cell starts at the top.
+  top: 'md:[&>td]:align-top',
+} as const;
+
+interface TrProps {
+  children: ReactNode;
+  card?: keyof typeof cardLayouts;
+  align?: keyof typeof rowAlignments;
+}
+
+export function Tr({ children, card = 'stack', align = 'middle' }: TrProps) {
   return (
-    <tr className="flex flex-col gap-2 rounded-lg border border-line bg-surface p-4 md:table-row md:rounded-none md:border-0 md:border-b md:p-0 md:last:border-b-0">
+    <tr
+      className={`${cardLayouts[card]} ${rowAlignments[align]} rounded-lg border border-line bg-surface p-4 md:table-row md:rounded-none md:border-0 md:border-b md:p-0 md:last:border-b-0`}
+    >
       {children}
     </tr>
   );
 }
 
+const cellLayouts = {
+  row: 'flex items-center justify-between gap-4',
+  // For long content (messages, stack traces) that needs the card's full width under its label.
+  block: 'flex flex-col items-stretch gap-1.5',
+} as const;
+
 interface TdProps extends TdHTMLAttributes<HTMLTableCellElement> {
   label: string;
+  card?: keyof typeof cellLayouts;
 }
 
-export function Td({ label, children, className = '', ...rest }: TdProps) {
+export function Td({ label, card = 'row', children, className = '', ...rest }: TdProps) {
   return (
     <td
       data-label={label}
       {...rest}
       className={
-        'flex items-center justify-between gap-4 md:table-cell md:px-4 md:py-3 md:align-middle ' +
+        `${cellLayouts[card]} md:table-cell md:px-4 md:py-3 md:align-middle ` +
         `before:text-xs before:font-semibold before:uppercase before:tracking-[0.08em] before:text-muted before:content-[attr(data-label)] md:before:content-none ${className}`
       }
     >

@@ -19,6 +19,8 @@ export const paths = {
   desk: { path: '/desk', getHref: () => '/desk' },
   lab: { path: '/lab', getHref: () => '/lab' },
   admin: { path: '/admin', getHref: () => '/admin' },
+  adminPeople: { path: '/admin/people', getHref: () => '/admin/people' },
+  adminQueues: { path: '/admin/queues', getHref: () => '/admin/queues' },
 } as const;
 
 export const apiPaths = {
@@ -29,4 +31,8 @@ export const apiPaths = {
   signOut: () => `${env.VITE_API_BASE}/auth/sign-out`,
   people: () => `${env.VITE_API_BASE}/admin/people`,
   person: (id: number) => `${env.VITE_API_BASE}/admin/people/${id}`,
+  queues: () => `${env.VITE_API_BASE}/admin/queues`,
+  jobs: () => `${env.VITE_API_BASE}/admin/jobs`,
+  // Job ids carry their queue ("mail:12"), so the id is encoded to stay one path segment whatever it holds.
+  retryJob: (id: string) => `${env.VITE_API_BASE}/admin/jobs/${encodeURIComponent(id)}/retry`,
 } as const;
