@@ -12,7 +12,7 @@ export interface DetrendOptions {
   cutoff?: number;
   /**
    * The biweight location is computed at window centres this far apart and interpolated between them;
-   * default a thirtieth of the window, far finer than the trend can change.
+   * default a twentieth of the window, far finer than the trend can change.
    */
   gridStepDays?: number;
 }
@@ -51,7 +51,7 @@ export function detrendBiweight(
   if (timeDays.length !== flux.length) {
     throw new ScienceInputError(`timeDays and flux differ in length (${timeDays.length} and ${flux.length})`);
   }
-  const gridStepDays = options.gridStepDays ?? windowDays / 30;
+  const gridStepDays = options.gridStepDays ?? windowDays / 20;
   const n = timeDays.length;
   const trend = new Float64Array(n);
   const segments = splitAtGaps(timeDays, windowDays / 2);
@@ -102,7 +102,7 @@ export function splitAtGaps(timeDays: Float64Array, maxGapDays: number): [number
 }
 
 // Iterated biweight location of flux[lo, hi), starting from the median (Mosteller & Tukey 1977):
-// u = (x − M) / (c · MAD), weights (1 − u²)² inside |u| < 1, until M moves less than 1e-9.
+// u = (x − M) / (c · MAD), weights (1 − u²)² inside |u| < 1, until M moves less than 1e-7.
 function biweightLocation(
   flux: Float64Array,
   lo: number,
@@ -132,7 +132,7 @@ function biweightLocation(
     const next = weighted / weightSum;
     const moved = Math.abs(next - location);
     location = next;
-    if (moved < 1e-9) break;
+    if (moved < 1e-7) break; // 0.1 ppm of a normalised flux: far below any noise
   }
   return location;
 }
