@@ -1,5 +1,6 @@
 // npm run bench [-- name-filter]: runs each benchmark module and prints one `name: value unit` per line.
 import * as auth from './auth.bench';
+import * as bls from './bls.bench';
 import { type Figure, formatFigure } from './figures';
 import * as pipeline from './pipeline.bench';
 import * as queue from './queue.bench';
@@ -8,6 +9,7 @@ const BENCHMARKS: [name: string, run: () => Promise<Figure[]>][] = [
   ['auth', auth.run],
   ['queue', queue.run],
   ['pipeline', pipeline.run],
+  ['bls', bls.run],
 ];
 
 const filter = process.argv[2];
