@@ -65,7 +65,10 @@ export function toCampaign(row: Raw): CampaignRow {
   };
 }
 
-export async function findCampaignById(db: Db | Knex.Transaction, id: number): Promise<CampaignRow | undefined> {
+export async function findCampaignById(
+  db: Db | Knex.Transaction,
+  id: number,
+): Promise<CampaignRow | undefined> {
   const row = await db('campaigns').where({ id }).first();
   return row ? toCampaign(row) : undefined;
 }

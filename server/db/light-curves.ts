@@ -20,7 +20,10 @@ export interface NewLightCurve {
   series: PackedLightCurve;
 }
 
-export async function insertLightCurve(db: Db | Knex.Transaction, lightCurve: NewLightCurve): Promise<number> {
+export async function insertLightCurve(
+  db: Db | Knex.Transaction,
+  lightCurve: NewLightCurve,
+): Promise<number> {
   const { series } = lightCurve;
   const now = nowIso();
   const [row] = await db('light_curves')

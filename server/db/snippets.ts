@@ -51,7 +51,10 @@ export async function insertSnippet(db: Db | Knex.Transaction, snippet: NewSnipp
   return Number(typeof row === 'object' ? row.id : row);
 }
 
-export async function countSnippets(db: Db, filter: { campaignId?: number; kind?: SnippetKind } = {}): Promise<number> {
+export async function countSnippets(
+  db: Db,
+  filter: { campaignId?: number; kind?: SnippetKind } = {},
+): Promise<number> {
   const query = db('snippets');
   if (filter.campaignId) query.where({ campaign_id: filter.campaignId });
   if (filter.kind) query.where({ kind: filter.kind });

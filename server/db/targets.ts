@@ -54,7 +54,9 @@ export async function upsertTarget(
   campaignId: number,
   fields: TargetFields,
 ): Promise<{ target: TargetRow; created: boolean }> {
-  const existing = await db('targets').where({ campaign_id: campaignId, designation: fields.designation }).first();
+  const existing = await db('targets')
+    .where({ campaign_id: campaignId, designation: fields.designation })
+    .first();
   const now = nowIso();
   if (existing) {
     const [row] = await db('targets')

@@ -33,7 +33,9 @@ export async function run(): Promise<Figure[]> {
   for (let i = 0; i < 7; i += 1) {
     const start = performance.now();
     const { lightCurve: clean } = cleanLightCurve(input);
-    const { detrended } = detrendBiweight(clean.timeDays, clean.flux, { windowDays: defaultDetrendWindowDays(12) });
+    const { detrended } = detrendBiweight(clean.timeDays, clean.flux, {
+      windowDays: defaultDetrendWindowDays(12),
+    });
     noiseFigures(clean.timeDays, detrended);
     const windows = cutWindows(clean.timeDays, { lengthDays: 2, overlap: 0.25 });
     for (const window of windows) displaySeries(clean.timeDays, detrended, window);
