@@ -22,7 +22,7 @@ try {
       console.error('The database already holds people; the demo scenario is only planted in an empty one.');
       process.exitCode = 1;
     } else {
-      await seedDemo(db);
+      await seedDemo(db, { targets: config.demoTargets });
       console.info('demo scenario seeded');
     }
   } else {

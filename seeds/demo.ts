@@ -2,6 +2,7 @@ import { hashPassword } from '../server/auth/password';
 import type { Role } from '../server/auth/roles';
 import type { Db } from '../server/db/knex';
 import { insertPerson, type PersonRow } from '../server/db/people';
+import { seedDemoSurvey } from './demo-survey';
 import { createCampaign, createSurveyTeam } from './factories/campaigns';
 
 // The demo scenario: an invented survey team, one live campaign and an account for every role.
@@ -28,7 +29,7 @@ export const DEMO_CAMPAIGN = {
     'Twenty-seven days of brightness measurements for a few hundred stars. Swipe right when you see a dip, left when the star stays flat; tap where the dip is deepest.',
 };
 
-export async function seedDemo(db: Db): Promise<void> {
+export async function seedDemo(db: Db, options: { targets: number } = { targets: 240 }): Promise<void> {
   // Hashes in parallel (each costs ~0.6 s), rows in a fixed order so that ids are the same every time.
   const hashes = await Promise.all(DEMO_ACCOUNTS.map(() => hashPassword(DEMO_PASSWORD)));
   const people: PersonRow[] = [];
@@ -39,10 +40,11 @@ export async function seedDemo(db: Db): Promise<void> {
   }
   const scientist = people.find((person) => person.role === 'scientist');
   const teamId = await createSurveyTeam(db, DEMO_TEAM.name, DEMO_TEAM.description);
-  await createCampaign(db, {
+  const campaignId = await createCampaign(db, {
     ...DEMO_CAMPAIGN,
     status: 'live',
     surveyTeamId: teamId,
     createdBy: scientist?.id ?? null,
   });
+  await seedDemoSurvey(db, { campaignId, targetCount: options.targets });
 }

@@ -25,6 +25,7 @@ const envSchema = z.object({
   SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters').optional(),
   PUBLIC_URL: z.url().optional(),
   DIPDECK_DEMO: booleanFlag.default(true),
+  DIPDECK_DEMO_TARGETS: z.coerce.number().int().min(1).max(5_000).default(240),
   TRUST_PROXY: booleanFlag.default(false),
   SESSION_IDLE_HOURS: z.coerce
     .number()
@@ -49,6 +50,8 @@ export interface Config {
   sessionSecret: string | undefined;
   publicUrl: string;
   demo: boolean;
+  /** How many invented targets the demo campaign gets. */
+  demoTargets: number;
   trustProxy: boolean;
   sessionIdleMs: number;
   sessionAbsoluteMs: number;
@@ -83,6 +86,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     sessionSecret: e.SESSION_SECRET,
     publicUrl: (e.PUBLIC_URL ?? `http://localhost:${e.PORT}`).replace(/\/$/, ''),
     demo: e.DIPDECK_DEMO,
+    demoTargets: e.DIPDECK_DEMO_TARGETS,
     trustProxy: e.TRUST_PROXY,
     sessionIdleMs: e.SESSION_IDLE_HOURS * 3_600_000,
     sessionAbsoluteMs: e.SESSION_ABSOLUTE_DAYS * 86_400_000,

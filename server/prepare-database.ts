@@ -6,12 +6,20 @@ import { countPeople } from './db/people';
 import type { Logger } from './logger';
 
 /** Start-up: bring the schema up to date and, on an empty database, plant the demo scenario. */
-export async function prepareDatabase(db: Db, config: Pick<Config, 'demo'>, logger: Logger): Promise<void> {
+export async function prepareDatabase(
+  db: Db,
+  config: Pick<Config, 'demo' | 'demoTargets'>,
+  logger: Logger,
+): Promise<void> {
   const applied = await migrateLatest(db);
   if (applied.length > 0) logger.info({ applied }, 'migrations applied');
   if (!config.demo) return;
   if ((await countPeople(db)) > 0) return;
-  await seedDemo(db);
+  logger.info(
+    { targets: config.demoTargets },
+    'planting the demo scenario: invented targets and their light curves',
+  );
+  await seedDemo(db, { targets: config.demoTargets });
   logger.info('demo scenario seeded');
 }
 

@@ -59,7 +59,14 @@ export async function startAppServer(): Promise<AppServer> {
   let log = '';
   const child = spawn(path.join(root, 'node_modules/.bin/tsx'), ['server/index.ts'], {
     cwd: root,
-    env: { ...process.env, PORT: String(port), DATA_DIR: dataDir, NODE_ENV: 'test', DIPDECK_DEMO: '1' },
+    env: {
+      ...process.env,
+      PORT: String(port),
+      DATA_DIR: dataDir,
+      NODE_ENV: 'test',
+      DIPDECK_DEMO: '1',
+      DIPDECK_DEMO_TARGETS: '12',
+    },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   const keep = (chunk: Buffer) => {
