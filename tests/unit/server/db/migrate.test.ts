@@ -88,3 +88,17 @@ describe('migrations on PostgreSQL', () => {
     },
   );
 });
+
+describe('migrations started by several processes at once', () => {
+  it('leave one complete schema when three connections migrate a new database together', async () => {
+    const file = path.join(dir, 'race.sqlite');
+    const connections = [0, 1, 2].map(() => createDb({ databaseUrl: undefined, sqliteFile: file }));
+    try {
+      const applied = await Promise.all(connections.map((connection) => migrateLatest(connection)));
+      expect(applied.flat()).toHaveLength(1);
+      expect(await sqliteTables(connections[0]!)).toEqual(EXPECTED_TABLES);
+    } finally {
+      await Promise.all(connections.map((connection) => connection.destroy()));
+    }
+  });
+});
