@@ -4,10 +4,12 @@ import * as bls from './bls.bench';
 import { type Figure, formatFigure } from './figures';
 import * as pipeline from './pipeline.bench';
 import * as queue from './queue.bench';
+import * as readers from './readers.bench';
 
 const BENCHMARKS: [name: string, run: () => Promise<Figure[]>][] = [
   ['auth', auth.run],
   ['queue', queue.run],
+  ['readers', readers.run],
   ['pipeline', pipeline.run],
   ['bls', bls.run],
 ];
