@@ -17,7 +17,7 @@ async function main(): Promise<void> {
   const queues = createQueues(createRedisConnection(config));
   if (queues.backend === 'embedded') {
     // The embedded store lives in this process, so this process is also the worker.
-    await startProcessors(queues, { config, db, logger });
+    await startProcessors(queues, { config, db, logger, queues });
   }
 
   const { app } = createApp({ config, db, logger, queues });

@@ -21,7 +21,7 @@ async function main(): Promise<void> {
   const db = createDb(config);
   await migrateLatest(db);
   const queues = createQueues(createRedisConnection(config));
-  await startProcessors(queues, { config, db, logger });
+  await startProcessors(queues, { config, db, logger, queues });
   logger.info('worker ready');
   console.info(`Dipdeck worker ${process.pid} is taking jobs from ${new URL(config.redisUrl).host}`);
 

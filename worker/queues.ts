@@ -18,6 +18,9 @@ export const QUEUE_KEYS = Object.keys(QUEUES) as QueueKey[];
 
 /** Job data per queue and job name, parsed again by the processor (a job may outlive a deploy). */
 export const JOB_DATA = {
+  ingest: {
+    upload: z.object({ uploadId: z.number().int().positive() }),
+  },
   housekeeping: {
     sweep: z.object({}),
   },

@@ -1,13 +1,14 @@
 import type Bull from 'bull';
 import type { ProcessorContext } from './processors/context';
 import { housekeepingProcessor } from './processors/housekeeping';
+import { ingestProcessor } from './processors/ingest';
 import { QUEUES, type QueueKey, type Queues } from './queues';
 
 type Processor = (job: Bull.Job) => Promise<unknown>;
 
 /** Queues whose processors exist so far; the others hold their jobs until theirs arrive. */
 function processors(ctx: ProcessorContext): Partial<Record<QueueKey, Processor>> {
-  return { housekeeping: housekeepingProcessor(ctx) };
+  return { ingest: ingestProcessor(ctx), housekeeping: housekeepingProcessor(ctx) };
 }
 
 export const SWEEP_EVERY_MS = 10 * 60_000;

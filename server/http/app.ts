@@ -2,6 +2,7 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { Queues } from '../../worker/queues';
+import { bearerAuthentication } from '../auth/bearer';
 import { createPassport } from '../auth/passport';
 import { sessionCookieName, sessionMiddleware } from '../auth/session';
 import { resolveSessionSecret } from '../auth/session-secret';
@@ -70,6 +71,7 @@ export function createApp(options: AppOptions): { app: Express; deps: AppDeps } 
   api.use(sessionMiddleware(config, db, resolveSessionSecret(config.sessionSecret, config.dataDir)));
   api.use(deps.passport.initialize());
   api.use(deps.passport.session());
+  api.use(bearerAuthentication(db, logger));
   for (const route of routeTable(deps)) mountRoute(api, route);
   api.use(apiNotFound);
   api.use(errorHandler);

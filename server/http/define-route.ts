@@ -45,6 +45,8 @@ export interface RouteDef<
   status?: number;
   /** False for the rare state-changing public route that a browser session cannot drive (one-click unsubscribe). */
   csrf?: false;
+  /** A multipart upload: the file field (for the API reference); `before` holds the parser. */
+  multipart?: { fileField: string; multiple: boolean; fields?: z.ZodType };
   /** Runs after the access check and before parsing (e.g. multipart parsing). */
   before?: RequestHandler[];
   handle: (ctx: RouteContext<Out<B>, Out<Q>, Out<P>>) => Promise<unknown>;
@@ -93,7 +95,7 @@ export function mountRoute(router: Router, route: AnyRouteDef): void {
   };
   const handler = async (req: Request, res: Response, next: NextFunction) => {
     try {
-      if (route.body && hasBody(req) && !req.is('application/json') && !route.before) {
+      if (route.body && !route.multipart && hasBody(req) && !req.is('application/json')) {
         throw new AppError('unsupported_media_type', 'Send the body as application/json', 'unsupported_type');
       }
       const result = await route.handle({

@@ -2,10 +2,23 @@ import type { AppDeps } from './app-deps';
 import type { AnyRouteDef } from './define-route';
 import { adminPeopleRoutes } from './routes/admin-people';
 import { authRoutes } from './routes/auth';
+import { campaignRoutes } from './routes/campaigns';
 import { healthRoutes } from './routes/health';
 import { jobRoutes } from './routes/jobs';
+import { labRoutes } from './routes/lab';
+import { openApiRoutes } from './routes/openapi';
+import { tokenRoutes } from './routes/tokens';
 
 /** Every API route, with its access rule. The authorisation tests and the API reference read this. */
 export function routeTable(deps: AppDeps): AnyRouteDef[] {
-  return [...healthRoutes(deps), ...authRoutes(deps), ...adminPeopleRoutes(deps), ...jobRoutes(deps)];
+  const routes: AnyRouteDef[] = [
+    ...healthRoutes(deps),
+    ...authRoutes(deps),
+    ...adminPeopleRoutes(deps),
+    ...jobRoutes(deps),
+    ...tokenRoutes(deps),
+    ...campaignRoutes(deps),
+    ...labRoutes(deps),
+  ];
+  return [...routes, ...openApiRoutes(deps, () => routes)];
 }

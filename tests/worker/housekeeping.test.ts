@@ -18,7 +18,7 @@ let queues: Queues;
 beforeAll(async () => {
   await migrateLatest(db);
   queues = createQueues(createRedisConnection({ redisUrl: undefined }, 'housekeeping-test'));
-  await startProcessors(queues, { config, db, logger: createLogger(config) });
+  await startProcessors(queues, { config, db, logger: createLogger(config), queues });
 });
 afterAll(async () => {
   await queues.close();
@@ -40,9 +40,9 @@ describe('the housekeeping sweep, through the queue', () => {
       { sid: 'expired', sess: '{}', expired: past },
       { sid: 'live', sess: '{}', expired: future },
     ]);
-    expect(await runSweep()).toEqual({ expiredSessionsDeleted: 1 });
+    expect(await runSweep()).toEqual({ expiredSessionsDeleted: 1, uploadsRequeued: 0 });
     expect(await db('sessions').pluck('sid')).toEqual(['live']);
-    expect(await runSweep()).toEqual({ expiredSessionsDeleted: 0 });
+    expect(await runSweep()).toEqual({ expiredSessionsDeleted: 0, uploadsRequeued: 0 });
     expect(await db('sessions').pluck('sid')).toEqual(['live']);
   });
 

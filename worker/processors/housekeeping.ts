@@ -7,6 +7,6 @@ export function housekeepingProcessor(ctx: ProcessorContext) {
   return async (job: Bull.Job) => {
     if (job.name !== 'sweep') throw new Error(`housekeeping has no job named ${job.name}`);
     JOB_DATA.housekeeping.sweep.parse(job.data);
-    return sweep(ctx.db);
+    return sweep(ctx.db, ctx.queues);
   };
 }

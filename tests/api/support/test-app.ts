@@ -43,7 +43,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
   let queues: Queues | undefined;
   if (options.queues) {
     queues = createQueues(createRedisConnection({ redisUrl: undefined }, `api-${randomUUID()}`));
-    await startProcessors(queues, { config, db, logger: createLogger(config) });
+    await startProcessors(queues, { config, db, logger: createLogger(config), queues });
   }
   const { app } = createApp({ config, db, queues });
   afterAll(async () => {
