@@ -142,8 +142,8 @@ function SignedInNav({ person }: { person: Person }) {
             busy={signOut.isPending}
             onClick={() => {
               // Leave the protected page first, or its guard would answer the sign-out by asking to sign in.
-              navigate(paths.home.getHref());
-              signOut.mutate();
+              // The navigation waits for the home route's loader, so sign out only once it has landed.
+              void Promise.resolve(navigate(paths.home.getHref())).then(() => signOut.mutate());
             }}
           >
             Sign out
