@@ -52,7 +52,7 @@ function toUpload(row: Raw): UploadRow {
 
 export interface NewUpload {
   campaignId: number;
-  uploadedBy: number;
+  uploadedBy: number | null;
   contentHash: string;
   originalName: string;
   format: 'csv' | 'fits';

@@ -2,9 +2,12 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createCampaign } from '../../seeds/factories/campaigns';
 import { loadConfig } from '../../server/config';
 import { createDb } from '../../server/db/knex';
 import { migrateLatest } from '../../server/db/migrate';
+import { upsertTarget } from '../../server/db/targets';
+import { insertUpload } from '../../server/db/uploads';
 import { createLogger } from '../../server/logger';
 import { createQueues, enqueue, type Queues } from '../../worker/queues';
 import { createRedisConnection } from '../../worker/redis-connection';
@@ -44,6 +47,46 @@ describe('the housekeeping sweep, through the queue', () => {
     expect(await db('sessions').pluck('sid')).toEqual(['live']);
     expect(await runSweep()).toEqual({ expiredSessionsDeleted: 0, uploadsRequeued: 0 });
     expect(await db('sessions').pluck('sid')).toEqual(['live']);
+  });
+
+  it('re-queues an upload whose job went missing, and the upload then completes', async () => {
+    const campaignId = await createCampaign(db, { status: 'live' });
+    await upsertTarget(db, campaignId, {
+      designation: 'DPD-0417-3021',
+      raDeg: null,
+      decDeg: null,
+      magnitude: null,
+      stellarRadiusRsun: 1,
+      stellarMassMsun: 1,
+      teffK: 5800,
+      assumedFields: [],
+    });
+    const fixture = path.resolve(import.meta.dirname, '../fixtures/reference/hot-jupiter.fits');
+    const { upload } = await insertUpload(db, {
+      campaignId,
+      uploadedBy: null,
+      contentHash: 'lost-job',
+      originalName: 'hot-jupiter.fits',
+      format: 'fits',
+      sizeBytes: fs.statSync(fixture).size,
+      storagePath: fixture,
+      targetHint: null,
+      isQuietReference: false,
+    });
+    // Queued an hour ago and never enqueued: as if Redis had lost the job.
+    await db('uploads')
+      .where({ id: upload.id })
+      .update({ updated_at: new Date(Date.now() - 3_600_000).toISOString() });
+    expect(await runSweep()).toEqual({ expiredSessionsDeleted: 0, uploadsRequeued: 1 });
+    for (
+      let i = 0;
+      i < 200 && (await db('uploads').where({ id: upload.id }).first()).status !== 'done';
+      i += 1
+    ) {
+      await new Promise((resolve) => setTimeout(resolve, 50));
+    }
+    expect((await db('uploads').where({ id: upload.id }).first()).status).toBe('done');
+    expect(await runSweep()).toEqual({ expiredSessionsDeleted: 0, uploadsRequeued: 0 });
   });
 
   it('is scheduled as a repeatable job when the processors start', async () => {
