@@ -147,6 +147,19 @@ describe('POST /api/campaigns/:id/light-curves', () => {
     expect(bad.body.error.fields.sort).toBeDefined();
   });
 
+  it('lets a scientist mark a real snippet quiet (a quiet control), once, on the record', async () => {
+    const real = await scientist.get(`/api/campaigns/${campaignId}/snippets?kind=real&pageSize=1`);
+    const id = real.body.snippets[0].id;
+    const marked = await scientist.post(`/api/snippets/${id}/quiet`);
+    expect(marked.status).toBe(200);
+    expect(marked.body.snippet.kind).toBe('quiet');
+    expect((await scientist.post(`/api/snippets/${id}/quiet`)).status).toBe(409);
+    const audit = await test.db('audit_log').where({ action: 'snippet.marked_quiet', entity_id: String(id) });
+    expect(audit).toHaveLength(1);
+    const { browser: moderator } = await signedIn(test, 'moderator');
+    expect((await moderator.post(`/api/snippets/${id}/quiet`)).status).toBe(403);
+  });
+
   it('fails an upload whose file cannot be read, with the reader’s message, and leaves the rest as it was', async () => {
     const before = await test.db('light_curves').count({ n: '*' });
     const noFlux = await uploadBuffer(

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { getSnippet, listSnippets } from '../../services/snippets/read-snippets';
+import { getSnippet, listSnippets, markSnippetQuiet } from '../../services/snippets/read-snippets';
 import { importCatalogue } from '../../services/targets/import-catalogue';
 import { getTarget, listTargets } from '../../services/targets/read-targets';
 import { createUploads } from '../../services/uploads/create-uploads';
@@ -116,6 +116,16 @@ export const labRoutes = (deps: AppDeps) => [
       'One snippet with its series (at most 600 points), its kind and, for a planted control, the truth',
     params: idParams,
     handle: async ({ params }) => ({ snippet: await getSnippet(deps.db, params.id) }),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/snippets/:id/quiet',
+    access: 'scientist',
+    summary: 'Mark an open real snippet as holding no transit: it becomes a quiet control',
+    params: idParams,
+    handle: async ({ params, person }) => ({
+      snippet: await markSnippetQuiet(deps.db, person!.id, params.id),
+    }),
   }),
   defineRoute({
     method: 'get',

@@ -1,7 +1,9 @@
+import { appendAudit } from '../../db/audit-log';
 import type { Db } from '../../db/knex';
-import { fromJson } from '../../db/rows';
+import { fromJson, nowIso } from '../../db/rows';
 import { unpackDisplay } from '../../db/series-codec';
-import { notFound } from '../../errors';
+import { writeTransaction } from '../../db/transaction';
+import { AppError, notFound } from '../../errors';
 
 export interface SnippetQuery {
   state?: 'open' | 'settled' | 'split' | 'ruled' | undefined;
@@ -92,4 +94,39 @@ export async function getSnippet(db: Db, id: number) {
     plantedTruth: fromJson(row.planted_truth, null),
     display: { offsetDays: Array.from(display.offsetDays), flux: Array.from(display.flux) },
   };
+}
+
+/**
+ * A scientist declares a real snippet to hold no transit: it becomes a quiet control, whose known answer
+ * measures volunteers' specificity. Only an open real snippet can be marked; the change is audit-logged.
+ */
+export async function markSnippetQuiet(db: Db, actorId: number, id: number) {
+  return writeTransaction(db, async (trx) => {
+    const row = await trx('snippets').where({ id }).first('id', 'kind', 'state');
+    if (!row) throw notFound('Snippet');
+    if (row.kind !== 'real') {
+      throw new AppError(
+        'not_real',
+        `Only a real snippet can be marked quiet; this one is ${row.kind}`,
+        'conflict',
+      );
+    }
+    if (row.state !== 'open') {
+      throw new AppError(
+        'not_open',
+        `Only an open snippet can be marked quiet; this one is ${row.state}`,
+        'conflict',
+      );
+    }
+    await trx('snippets').where({ id }).update({ kind: 'quiet', updated_at: nowIso() });
+    await appendAudit(trx, {
+      actorId,
+      action: 'snippet.marked_quiet',
+      entityType: 'snippet',
+      entityId: id,
+      before: { kind: 'real' },
+      after: { kind: 'quiet' },
+    });
+    return getSnippet(trx, id);
+  });
 }
