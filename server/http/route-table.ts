@@ -3,6 +3,7 @@ import type { AnyRouteDef } from './define-route';
 import { adminPeopleRoutes } from './routes/admin-people';
 import { authRoutes } from './routes/auth';
 import { campaignRoutes } from './routes/campaigns';
+import { deckRoutes } from './routes/deck';
 import { healthRoutes } from './routes/health';
 import { jobRoutes } from './routes/jobs';
 import { labRoutes } from './routes/lab';
@@ -19,6 +20,7 @@ export function routeTable(deps: AppDeps): AnyRouteDef[] {
     ...tokenRoutes(deps),
     ...campaignRoutes(deps),
     ...labRoutes(deps),
+    ...deckRoutes(deps),
   ];
   return [...routes, ...openApiRoutes(deps, () => routes)];
 }

@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { csrf } from '../../auth/csrf';
 import type { PersonRow } from '../../db/people';
 import { signUp } from '../../services/auth/sign-up';
+import { claimGuestVerdicts } from '../../services/deck/verdicts';
 import { toPersonView } from '../../services/people/person-view';
 import { updateOwnAccount } from '../../services/people/update-own-account';
 import type { AppDeps } from '../app-deps';
@@ -40,8 +41,13 @@ const signInBody = z.object({
 
 // passport 0.7 regenerates the session on login (a new id: no session fixation) and keeps nothing
 // of the old one, so the client fetches a new CSRF token afterwards.
-function logIn(req: Request, person: PersonRow): Promise<void> {
-  return new Promise((resolve, reject) => req.login(person, (error) => (error ? reject(error) : resolve())));
+// A visitor's guest verdicts come with them into their account (the session they were kept in is new).
+async function logIn(req: Request, person: PersonRow, deps: AppDeps): Promise<void> {
+  const guestKey = req.session.guestKey;
+  await new Promise<void>((resolve, reject) =>
+    req.login(person, (error) => (error ? reject(error) : resolve())),
+  );
+  if (guestKey) await claimGuestVerdicts(deps.db, guestKey, person.id);
 }
 
 function authenticate(req: Request, deps: AppDeps): Promise<PersonRow> {
@@ -71,7 +77,7 @@ export const authRoutes = (deps: AppDeps) => [
     status: 201,
     handle: async ({ req, body }) => {
       const person = await signUp(deps.db, body);
-      await logIn(req, person);
+      await logIn(req, person, deps);
       return { person: toPersonView(person) };
     },
   }),
@@ -84,7 +90,7 @@ export const authRoutes = (deps: AppDeps) => [
     handle: async ({ req, body }) => {
       req.body = body; // passport-local reads the trimmed values
       const person = await authenticate(req, deps);
-      await logIn(req, person);
+      await logIn(req, person, deps);
       return { person: toPersonView(person) };
     },
   }),

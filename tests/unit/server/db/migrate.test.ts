@@ -12,6 +12,8 @@ afterAll(async () => {
   fs.rmSync(dir, { recursive: true, force: true });
 });
 
+const MIGRATION_COUNT = 2;
+
 const EXPECTED_TABLES = [
   'api_tokens',
   'audit_log',
@@ -30,6 +32,7 @@ const EXPECTED_TABLES = [
   'survey_teams',
   'targets',
   'uploads',
+  'verdict_receipts',
   'verdicts',
 ];
 
@@ -49,12 +52,12 @@ async function postgresTables(db: Db): Promise<string[]> {
 
 async function upDownUp(db: Db, tables: (db: Db) => Promise<string[]>): Promise<void> {
   await rollbackAll(db);
-  expect(await migrateLatest(db)).toHaveLength(1);
+  expect(await migrateLatest(db)).toHaveLength(MIGRATION_COUNT);
   expect(await tables(db)).toEqual(EXPECTED_TABLES);
   expect(await migrateLatest(db)).toHaveLength(0);
-  expect(await rollbackAll(db)).toHaveLength(1);
+  expect(await rollbackAll(db)).toHaveLength(MIGRATION_COUNT);
   expect(await tables(db)).toEqual([]);
-  expect(await migrateLatest(db)).toHaveLength(1);
+  expect(await migrateLatest(db)).toHaveLength(MIGRATION_COUNT);
   expect(await tables(db)).toEqual(EXPECTED_TABLES);
 }
 
@@ -95,7 +98,7 @@ describe('migrations started by several processes at once', () => {
     const connections = [0, 1, 2].map(() => createDb({ databaseUrl: undefined, sqliteFile: file }));
     try {
       const applied = await Promise.all(connections.map((connection) => migrateLatest(connection)));
-      expect(applied.flat()).toHaveLength(1);
+      expect(applied.flat()).toHaveLength(MIGRATION_COUNT);
       expect(await sqliteTables(connections[0]!)).toEqual(EXPECTED_TABLES);
     } finally {
       await Promise.all(connections.map((connection) => connection.destroy()));
