@@ -218,3 +218,21 @@ describe('trying before signing up', () => {
     expect(response.body.cards).toHaveLength(2);
   });
 });
+
+describe('GET /api/record', () => {
+  it('counts a person’s verdicts and their accuracy on controls once they have seen enough', async () => {
+    const { browser } = await signedIn(test, 'volunteer');
+    for (const id of fixtures.snippetIds.planted.slice(40, 46))
+      await browser.post('/api/verdicts', verdict(id, 'dip', { markTime: undefined }));
+    for (const id of fixtures.snippetIds.quiet.slice(40, 44))
+      await browser.post('/api/verdicts', verdict(id, 'flat'));
+    await browser.post('/api/verdicts', verdict(fixtures.snippetIds.planted[46]!, 'flat'));
+    const { record } = (await browser.get('/api/record')).body;
+    expect(record.verdicts).toMatchObject({ total: 11, dip: 6, flat: 5, unsure: 0, last30Days: 11 });
+    expect(record.controls).toMatchObject({ plantedSeen: 7, plantedFound: 6, quietSeen: 4, quietCorrect: 4 });
+    expect(record.controls.sensitivity).toBeCloseTo(6 / 7, 10);
+    expect(record.controls.specificity).toBeNull(); // fewer than 5 quiet controls so far
+    expect(record.recent).toHaveLength(11);
+    expect((await request(test.app).get('/api/record')).status).toBe(401);
+  });
+});

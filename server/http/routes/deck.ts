@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { AppError } from '../../errors';
 import { defaultLiveCampaign, type Judge, nextCards } from '../../services/deck/next-cards';
 import { recordVerdict, undoVerdict } from '../../services/deck/verdicts';
+import { myRecord } from '../../services/record/my-record';
 import type { AppDeps } from '../app-deps';
 import { defineRoute } from '../define-route';
 
@@ -47,6 +48,13 @@ const verdictBody = z
   .strict();
 
 export const deckRoutes = (deps: AppDeps) => [
+  defineRoute({
+    method: 'get',
+    path: '/record',
+    access: 'signed-in',
+    summary: 'My record: your verdicts, accuracy on controls, and the dips and candidates you helped find',
+    handle: async ({ person }) => ({ record: await myRecord(deps.db, person!.id) }),
+  }),
   defineRoute({
     method: 'get',
     path: '/deck/next',
