@@ -78,9 +78,9 @@ export async function createSnippetFixtures(
         updated_at: now,
       };
     });
-    for (let i = 0; i < rows.length; i += 500) {
+    for (let i = 0; i < rows.length; i += 400) {
       const inserted = await db('snippets')
-        .insert(rows.slice(i, i + 500))
+        .insert(rows.slice(i, i + 400))
         .returning('id');
       snippetIds[kind].push(
         ...inserted.map((row: { id: number } | number) => Number(typeof row === 'object' ? row.id : row)),

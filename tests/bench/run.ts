@@ -1,6 +1,7 @@
 // npm run bench [-- name-filter]: runs each benchmark module and prints one `name: value unit` per line.
 import * as auth from './auth.bench';
 import * as bls from './bls.bench';
+import * as deck from './deck.bench';
 import { type Figure, formatFigure } from './figures';
 import * as pipeline from './pipeline.bench';
 import * as queue from './queue.bench';
@@ -12,6 +13,7 @@ const BENCHMARKS: [name: string, run: () => Promise<Figure[]>][] = [
   ['readers', readers.run],
   ['pipeline', pipeline.run],
   ['bls', bls.run],
+  ['deck', deck.run],
 ];
 
 const filter = process.argv[2];
