@@ -7,7 +7,14 @@ import {
   AdminRoute,
   DeckRoute,
   DeskRoute,
+  LabApiReferenceRoute,
+  LabCampaignRoute,
+  LabCampaignsRoute,
+  LabNewCampaignRoute,
   LabRoute,
+  LabSnippetsRoute,
+  LabTargetRoute,
+  LabTokensRoute,
   RecordRoute,
 } from '@/app/routes/areas';
 import { HomeRoute } from '@/app/routes/home';
@@ -29,7 +36,19 @@ export const router = createBrowserRouter([
       { path: paths.deck.path, Component: DeckRoute },
       { path: paths.record.path, Component: RecordRoute },
       { path: paths.desk.path, Component: DeskRoute },
-      { path: paths.lab.path, Component: LabRoute },
+      {
+        path: paths.lab.path,
+        Component: LabRoute,
+        children: [
+          { index: true, Component: LabCampaignsRoute },
+          { path: paths.labNewCampaign.path, Component: LabNewCampaignRoute },
+          { path: paths.labCampaign.path, Component: LabCampaignRoute },
+          { path: paths.labSnippets.path, Component: LabSnippetsRoute },
+          { path: paths.labTarget.path, Component: LabTargetRoute },
+          { path: paths.labTokens.path, Component: LabTokensRoute },
+          { path: paths.labApiReference.path, Component: LabApiReferenceRoute },
+        ],
+      },
       {
         path: paths.admin.path,
         Component: AdminRoute,

@@ -1,4 +1,4 @@
-import type { ReactNode, TdHTMLAttributes, ThHTMLAttributes } from 'react';
+import type { HTMLAttributes, ReactNode, TdHTMLAttributes, ThHTMLAttributes } from 'react';
 
 /*
  * Below the md breakpoint each row becomes a card and each cell shows its column name from `label`,
@@ -52,16 +52,23 @@ const rowAlignments = {
   top: 'md:[&>td]:align-top',
 } as const;
 
-interface TrProps {
+interface TrProps extends Omit<HTMLAttributes<HTMLTableRowElement>, 'className'> {
   children: ReactNode;
   card?: keyof typeof cardLayouts;
   align?: keyof typeof rowAlignments;
+  /** The row someone picked (its preview is showing): marked in amber, the colour of attention. */
+  selected?: boolean;
 }
 
-export function Tr({ children, card = 'stack', align = 'middle' }: TrProps) {
+export function Tr({ children, card = 'stack', align = 'middle', selected = false, ...rest }: TrProps) {
   return (
     <tr
-      className={`${cardLayouts[card]} ${rowAlignments[align]} rounded-lg border border-line bg-surface p-4 md:table-row md:rounded-none md:border-0 md:border-b md:p-0 md:last:border-b-0`}
+      {...rest}
+      className={`${cardLayouts[card]} ${rowAlignments[align]} rounded-lg border p-4 md:table-row md:rounded-none md:border-0 md:border-b md:p-0 md:last:border-b-0 ${
+        selected
+          ? 'border-amber bg-amber-wash/60 md:border-b-line md:shadow-[inset_3px_0_0_var(--color-amber)]'
+          : 'border-line bg-surface'
+      }`}
     >
       {children}
     </tr>

@@ -18,6 +18,20 @@ export const paths = {
   record: { path: '/record', getHref: () => '/record' },
   desk: { path: '/desk', getHref: () => '/desk' },
   lab: { path: '/lab', getHref: () => '/lab' },
+  labNewCampaign: { path: '/lab/campaigns/new', getHref: () => '/lab/campaigns/new' },
+  labCampaign: {
+    path: '/lab/campaigns/:campaignId',
+    getHref: (campaignId: number) => `/lab/campaigns/${campaignId}`,
+  },
+  labSnippets: {
+    path: '/lab/campaigns/:campaignId/snippets',
+    /** `target` opens the browser already filtered to one target's snippets. */
+    getHref: (campaignId: number, filter: { target?: string } = {}) =>
+      `/lab/campaigns/${campaignId}/snippets${filter.target ? `?target=${encodeURIComponent(filter.target)}` : ''}`,
+  },
+  labTarget: { path: '/lab/targets/:targetId', getHref: (targetId: number) => `/lab/targets/${targetId}` },
+  labTokens: { path: '/lab/tokens', getHref: () => '/lab/tokens' },
+  labApiReference: { path: '/lab/api', getHref: () => '/lab/api' },
   admin: { path: '/admin', getHref: () => '/admin' },
   adminPeople: { path: '/admin/people', getHref: () => '/admin/people' },
   adminQueues: { path: '/admin/queues', getHref: () => '/admin/queues' },
@@ -35,4 +49,16 @@ export const apiPaths = {
   jobs: () => `${env.VITE_API_BASE}/admin/jobs`,
   // Job ids carry their queue ("mail:12"), so the id is encoded to stay one path segment whatever it holds.
   retryJob: (id: string) => `${env.VITE_API_BASE}/admin/jobs/${encodeURIComponent(id)}/retry`,
+  campaigns: () => `${env.VITE_API_BASE}/campaigns`,
+  campaign: (id: number) => `${env.VITE_API_BASE}/campaigns/${id}`,
+  campaignTargets: (id: number) => `${env.VITE_API_BASE}/campaigns/${id}/targets`,
+  campaignLightCurves: (id: number) => `${env.VITE_API_BASE}/campaigns/${id}/light-curves`,
+  campaignUploads: (id: number) => `${env.VITE_API_BASE}/campaigns/${id}/uploads`,
+  campaignSnippets: (id: number) => `${env.VITE_API_BASE}/campaigns/${id}/snippets`,
+  upload: (id: number) => `${env.VITE_API_BASE}/uploads/${id}`,
+  snippet: (id: number) => `${env.VITE_API_BASE}/snippets/${id}`,
+  target: (id: number) => `${env.VITE_API_BASE}/targets/${id}`,
+  tokens: () => `${env.VITE_API_BASE}/tokens`,
+  token: (id: number) => `${env.VITE_API_BASE}/tokens/${id}`,
+  openApi: () => `${env.VITE_API_BASE}/openapi.json`,
 } as const;

@@ -75,7 +75,9 @@ async function send(
   init: { method: Method; body?: unknown; signal?: AbortSignal; csrf?: string },
 ) {
   const headers: Record<string, string> = { Accept: 'application/json' };
-  if (init.body !== undefined) headers['Content-Type'] = 'application/json';
+  // A FormData body needs the browser to write its own multipart boundary into Content-Type.
+  const isForm = init.body instanceof FormData;
+  if (init.body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
   if (init.csrf) headers['X-CSRF-Token'] = init.csrf;
 
   let response: Response;
@@ -83,7 +85,8 @@ async function send(
     response = await fetch(url, {
       method: init.method,
       headers,
-      body: init.body === undefined ? undefined : JSON.stringify(init.body),
+      body:
+        init.body === undefined ? undefined : isForm ? (init.body as FormData) : JSON.stringify(init.body),
       credentials: 'same-origin',
       signal: init.signal ?? null,
     });
@@ -108,6 +111,10 @@ async function send(
     if (parsed.success) {
       const { code, message, fields } = parsed.data.error;
       throw new ApiError(response.status, code, message, fields ?? {});
+    }
+    // A proxy in front of the server can refuse a big upload before Dipdeck sees it, without our JSON.
+    if (response.status === 413) {
+      throw new ApiError(413, 'too_large', 'The upload is larger than the server accepts.');
     }
     throw new ApiError(
       response.status,
@@ -156,6 +163,13 @@ export const api = {
     body?: unknown,
     options: Omit<RequestOptions, 'method'> = {},
   ) => apiRequest(path, { ...options, method: 'PATCH', body }).then((data) => schema.parse(data)),
+  /** A multipart POST (file uploads); the CSRF header goes with it like any other POST. */
+  upload: <T>(
+    path: string,
+    schema: z.ZodType<T>,
+    form: FormData,
+    options: Omit<RequestOptions, 'method'> = {},
+  ) => apiRequest(path, { ...options, method: 'POST', body: form }).then((data) => schema.parse(data)),
   delete: (path: string, options: Omit<RequestOptions, 'method'> = {}) =>
     apiRequest(path, { ...options, method: 'DELETE' }).then(() => undefined),
 };

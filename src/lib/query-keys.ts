@@ -17,6 +17,25 @@ export interface JobListParams {
   limit: number;
 }
 
+export interface TargetListParams {
+  campaignId: number;
+  q: string;
+  page: number;
+  pageSize: number;
+}
+
+export interface SnippetListParams {
+  campaignId: number;
+  /** '' for every state, kind or target. */
+  state: string;
+  kind: string;
+  target: string;
+  sort: 'id' | 'timeStart' | 'verdictCount' | 'consensusScore';
+  order: 'asc' | 'desc';
+  page: number;
+  pageSize: number;
+}
+
 export const queryKeys = {
   me: () => ['me', {}] as const,
   people: {
@@ -31,4 +50,30 @@ export const queryKeys = {
     all: () => ['jobs'] as const,
     list: (params: JobListParams) => ['jobs', params] as const,
   },
+  // A campaign's counts change with every upload, so uploads invalidate 'campaigns' as a whole.
+  campaigns: {
+    all: () => ['campaigns'] as const,
+    list: () => ['campaigns', {}] as const,
+    detail: (id: number) => ['campaigns', { id }] as const,
+  },
+  targets: {
+    all: () => ['targets'] as const,
+    list: (params: TargetListParams) => ['targets', params] as const,
+    detail: (id: number) => ['targets', { id }] as const,
+  },
+  uploads: {
+    all: () => ['uploads'] as const,
+    ofCampaign: (campaignId: number) => ['uploads', { campaignId }] as const,
+    detail: (id: number) => ['uploads', { id }] as const,
+  },
+  snippets: {
+    all: () => ['snippets'] as const,
+    list: (params: SnippetListParams) => ['snippets', params] as const,
+    detail: (id: number) => ['snippets', { id }] as const,
+  },
+  tokens: {
+    all: () => ['tokens'] as const,
+    list: () => ['tokens', {}] as const,
+  },
+  openApi: () => ['openapi', {}] as const,
 } as const;

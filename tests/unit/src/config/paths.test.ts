@@ -26,3 +26,13 @@ describe('apiPaths', () => {
     expect(apiPaths.retryJob('a/b')).toBe('/api/admin/jobs/a%2Fb/retry');
   });
 });
+
+describe('Lab paths', () => {
+  it('opens the snippet browser filtered to one target, with the designation encoded', () => {
+    expect(paths.labSnippets.getHref(4)).toBe('/lab/campaigns/4/snippets');
+    expect(paths.labSnippets.getHref(4, { target: 'DPD 0417+3021' })).toBe(
+      '/lab/campaigns/4/snippets?target=DPD%200417%2B3021',
+    );
+    expect(apiPaths.campaignLightCurves(4)).toBe('/api/campaigns/4/light-curves');
+  });
+});
