@@ -140,11 +140,7 @@ function SignedInNav({ person }: { person: Person }) {
           <Button
             variant="secondary"
             busy={signOut.isPending}
-            onClick={() => {
-              // Leave the protected page first, or its guard would answer the sign-out by asking to sign in.
-              // The navigation waits for the home route's loader, so sign out only once it has landed.
-              void Promise.resolve(navigate(paths.home.getHref())).then(() => signOut.mutate());
-            }}
+            onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate(paths.home.getHref()) })}
           >
             Sign out
           </Button>

@@ -6,6 +6,7 @@ import { Loading } from '@/components/loading';
 import { type AreaKey, areaByKey } from '@/config/areas';
 import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
+import { takeSignedOutOnPurpose } from '@/features/auth/api/sign-out';
 import { hasRole, type Person } from '@/lib/person';
 
 interface RequireAreaProps {
@@ -27,6 +28,8 @@ export function RequireArea({ area, children }: RequireAreaProps) {
     );
   }
   if (!me.data) {
+    // Signing out on a protected page leads home, not to the sign-in form.
+    if (takeSignedOutOnPurpose()) return <Navigate to={paths.home.getHref()} replace />;
     return <Navigate to={paths.signIn.getHref(`${location.pathname}${location.search}`)} replace />;
   }
   const target = areaByKey(area);

@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { type QueryClient, useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiPaths } from '@/config/paths';
 import { apiRequest } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
@@ -7,13 +7,30 @@ export async function signOut(): Promise<void> {
   await apiRequest(apiPaths.signOut(), { method: 'POST', rotatesSession: true });
 }
 
+// Set when the person signs out on purpose, so that the protected page they were on sends them home
+// rather than to the sign-in form (whatever order the navigation and the cache update land in).
+let signedOutOnPurposeAt = 0;
+
+/** True once, within a few seconds of a deliberate sign-out. */
+export function takeSignedOutOnPurpose(): boolean {
+  const recent = Date.now() - signedOutOnPurposeAt < 3_000;
+  signedOutOnPurposeAt = 0;
+  return recent;
+}
+
+/** Drops everything cached for the person who signed out, and records that nobody is signed in. */
+export function forgetSignedInPerson(queryClient: QueryClient): void {
+  queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== queryKeys.me()[0] });
+  queryClient.setQueryData(queryKeys.me(), null);
+}
+
 export function useSignOut() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: signOut,
     onSuccess: () => {
-      queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== queryKeys.me()[0] });
-      queryClient.setQueryData(queryKeys.me(), null);
+      signedOutOnPurposeAt = Date.now();
+      forgetSignedInPerson(queryClient);
     },
   });
 }
