@@ -187,11 +187,39 @@ describe('POST /api/campaigns/:id/light-curves', () => {
       (await uploadBuffer('nan.csv', Buffer.from(nanFlux), { target: 'DPD-1188-0754' })).body.uploads[0].id,
     );
     expect(allNan.error).toMatch(/finite|NaN/i);
+    // A FITS file with only a primary header and no table (FITS Standard 4.0: 2880-byte header blocks).
+    const card = (text: string) => text.padEnd(80, ' ');
+    const primaryOnly = Buffer.from(
+      [
+        card('SIMPLE  =                    T'),
+        card('BITPIX  =                    8'),
+        card('NAXIS   =                    0'),
+        card('END'),
+      ]
+        .join('')
+        .padEnd(2880, ' '),
+      'latin1',
+    );
+    const noTable = await finished(
+      (await uploadBuffer('no-table.fits', primaryOnly, { target: 'DPD-1188-0754' })).body.uploads[0].id,
+    );
+    expect(noTable.status).toBe('failed');
+    expect(noTable.error).toMatch(/table/i);
     const notFits = await finished(
       (await uploadBuffer('broken.fits', Buffer.from(`SIMPLE  =${' '.repeat(100)}`))).body.uploads[0].id,
     );
     expect(notFits.status).toBe('failed');
     expect(await test.db('light_curves').count({ n: '*' })).toEqual(before);
+  });
+
+  it('refuses a file over 100 MB with 413 and keeps none of it', async () => {
+    const big = path.join(test.dataDir, 'too-big.csv');
+    fs.writeFileSync(big, 'time,flux\n');
+    fs.truncateSync(big, 100 * 1024 * 1024 + 1); // sparse: quick to make
+    const response = await upload([big]);
+    expect(response.status).toBe(413);
+    expect(fs.readdirSync(path.join(test.dataDir, 'uploads', 'incoming'))).toEqual([]);
+    fs.rmSync(big);
   });
 
   it('refuses, before storing anything: wrong type (415), empty file, unknown target (400), closed campaign (409), volunteer (403)', async () => {
