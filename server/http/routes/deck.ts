@@ -20,7 +20,7 @@ function judgeOf(req: Request): Judge {
   if (req.user) {
     if (req.user.suspendedAt)
       throw new AppError('account_suspended', 'This account is suspended', 'forbidden');
-    return { personId: req.user.id };
+    return { personId: req.user.id, lastActiveAt: req.user.lastActiveAt };
   }
   req.session.guestKey ??= randomUUID();
   return { guestKey: req.session.guestKey };

@@ -4,7 +4,9 @@ import { unpackDisplay } from '../../db/series-codec';
 import { AppError, notFound } from '../../errors';
 
 /** Who is asking: a signed-in person, or a visitor known by the guest key in their session. */
-export type Judge = { personId: number; guestKey?: undefined } | { personId?: undefined; guestKey: string };
+export type Judge =
+  | { personId: number; guestKey?: undefined; lastActiveAt?: string | null }
+  | { personId?: undefined; guestKey: string; lastActiveAt?: undefined };
 
 /** Exactly what a card needs, and nothing that gives the answer away: no kind, no truth, no other verdicts, no target. */
 export interface Card {

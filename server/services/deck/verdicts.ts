@@ -51,7 +51,10 @@ async function reveal(
   judge: Judge,
   feedbackRate: number,
 ): Promise<Reveal> {
-  const target = await trx('targets').where({ id: snippet.target_id }).first('designation');
+  const target =
+    snippet.designation !== undefined
+      ? { designation: snippet.designation }
+      : await trx('targets').where({ id: snippet.target_id }).first('designation');
   let feedback: Reveal['feedback'] = null;
   if (
     (snippet.kind === 'planted' || snippet.kind === 'quiet') &&
@@ -105,8 +108,9 @@ export async function recordVerdict(
         });
       const snippet = await trx('snippets')
         .join('campaigns', 'campaigns.id', 'snippets.campaign_id')
+        .join('targets', 'targets.id', 'snippets.target_id')
         .where('snippets.id', existing.snippet_id)
-        .first('snippets.*', 'campaigns.feedback_rate');
+        .first('snippets.*', 'campaigns.feedback_rate', 'targets.designation');
       return {
         created: false,
         verdict: toView(existing, input.clientId),
@@ -116,8 +120,14 @@ export async function recordVerdict(
 
     const snippet = await trx('snippets')
       .join('campaigns', 'campaigns.id', 'snippets.campaign_id')
+      .join('targets', 'targets.id', 'snippets.target_id')
       .where('snippets.id', input.snippetId)
-      .first('snippets.*', 'campaigns.status as campaign_status', 'campaigns.feedback_rate');
+      .first(
+        'snippets.*',
+        'campaigns.status as campaign_status',
+        'campaigns.feedback_rate',
+        'targets.designation',
+      );
     if (!snippet)
       throw new AppError('validation_failed', 'No such snippet', 'invalid', { snippetId: 'Unknown snippet' });
     if (snippet.campaign_status !== 'live') {
@@ -158,13 +168,13 @@ export async function recordVerdict(
       .where({ snippet_id: input.snippetId, ...judgeWhere(judge) })
       .first();
     let row: Record<string, unknown>;
+    let counted = 0; // how much the snippet's count of counting verdicts grows
     if (existing) {
       [row] = await trx('verdicts')
         .where({ id: existing.id })
         .update({ ...fields, client_id: input.clientId })
         .returning('*');
-      if (existing.withdrawn_at && judge.personId)
-        await trx('snippets').where({ id: input.snippetId }).increment('verdict_count', 1);
+      if (existing.withdrawn_at && judge.personId) counted = 1;
     } else {
       [row] = await trx('verdicts')
         .insert({
@@ -176,12 +186,19 @@ export async function recordVerdict(
           created_at: now,
         })
         .returning('*');
-      if (judge.personId) await trx('snippets').where({ id: input.snippetId }).increment('verdict_count', 1);
+      if (judge.personId) counted = 1;
     }
     await trx('verdict_receipts').insert({ client_id: input.clientId, verdict_id: row!.id, created_at: now });
     // The consensus job rescores snippets marked so (the consensus issue); a guest's verdict does not count.
-    if (judge.personId) await trx('snippets').where({ id: input.snippetId }).update({ needs_rescore: true });
-    if (judge.personId) await trx('people').where({ id: judge.personId }).update({ last_active_at: now });
+    if (judge.personId) {
+      await trx('snippets')
+        .where({ id: input.snippetId })
+        .update({ needs_rescore: true, verdict_count: trx.raw('verdict_count + ?', [counted]) });
+      // "Last active" is for the audit's eyes: minutes are precise enough, and it saves a write per verdict.
+      if (!judge.lastActiveAt || Date.parse(now) - Date.parse(judge.lastActiveAt) > 5 * 60_000) {
+        await trx('people').where({ id: judge.personId }).update({ last_active_at: now });
+      }
+    }
     return {
       created: true,
       verdict: toView(row!, input.clientId),
