@@ -1,61 +1,82 @@
 import { createBrowserRouter } from 'react-router-dom';
 import { AppLayout } from '@/app/app-layout';
-import {
-  AdminIndexRoute,
-  AdminPeopleRoute,
-  AdminQueuesRoute,
-  AdminRoute,
-  DeckRoute,
-  DeskRoute,
-  LabApiReferenceRoute,
-  LabCampaignRoute,
-  LabCampaignsRoute,
-  LabNewCampaignRoute,
-  LabRoute,
-  LabSnippetsRoute,
-  LabTargetRoute,
-  LabTokensRoute,
-  RecordRoute,
-} from '@/app/routes/areas';
+import { DeckRoute } from '@/app/routes/deck';
 import { HomeRoute } from '@/app/routes/home';
 import { NotFoundRoute } from '@/app/routes/not-found';
 import { RootErrorBoundary } from '@/app/routes/root-error-boundary';
+import { RouteLoading } from '@/app/routes/route-loading';
 import { SignInRoute } from '@/app/routes/sign-in';
 import { SignUpRoute } from '@/app/routes/sign-up';
 import { paths } from '@/config/paths';
+
+// The Deck is where most people spend their time, mostly on phones, so it ships in the entry chunk;
+// the staff areas (Desk, Lab, Admin) and My record load on first visit, each in a chunk of its own.
+const lab = () => import('@/app/routes/lab');
+const admin = () => import('@/app/routes/admin');
 
 export const router = createBrowserRouter([
   {
     path: paths.home.path,
     Component: AppLayout,
     ErrorBoundary: RootErrorBoundary,
+    HydrateFallback: RouteLoading,
     children: [
       { index: true, Component: HomeRoute },
       { path: paths.signIn.path, Component: SignInRoute },
       { path: paths.signUp.path, Component: SignUpRoute },
       { path: paths.deck.path, Component: DeckRoute },
-      { path: paths.record.path, Component: RecordRoute },
-      { path: paths.desk.path, Component: DeskRoute },
+      {
+        path: paths.record.path,
+        lazy: () => import('@/app/routes/record').then((module) => ({ Component: module.RecordRoute })),
+      },
+      {
+        path: paths.desk.path,
+        lazy: () => import('@/app/routes/desk').then((module) => ({ Component: module.DeskRoute })),
+      },
       {
         path: paths.lab.path,
-        Component: LabRoute,
+        lazy: () => lab().then((module) => ({ Component: module.LabRoute })),
         children: [
-          { index: true, Component: LabCampaignsRoute },
-          { path: paths.labNewCampaign.path, Component: LabNewCampaignRoute },
-          { path: paths.labCampaign.path, Component: LabCampaignRoute },
-          { path: paths.labSnippets.path, Component: LabSnippetsRoute },
-          { path: paths.labTarget.path, Component: LabTargetRoute },
-          { path: paths.labTokens.path, Component: LabTokensRoute },
-          { path: paths.labApiReference.path, Component: LabApiReferenceRoute },
+          { index: true, lazy: () => lab().then((module) => ({ Component: module.LabCampaignsRoute })) },
+          {
+            path: paths.labNewCampaign.path,
+            lazy: () => lab().then((module) => ({ Component: module.LabNewCampaignRoute })),
+          },
+          {
+            path: paths.labCampaign.path,
+            lazy: () => lab().then((module) => ({ Component: module.LabCampaignRoute })),
+          },
+          {
+            path: paths.labSnippets.path,
+            lazy: () => lab().then((module) => ({ Component: module.LabSnippetsRoute })),
+          },
+          {
+            path: paths.labTarget.path,
+            lazy: () => lab().then((module) => ({ Component: module.LabTargetRoute })),
+          },
+          {
+            path: paths.labTokens.path,
+            lazy: () => lab().then((module) => ({ Component: module.LabTokensRoute })),
+          },
+          {
+            path: paths.labApiReference.path,
+            lazy: () => lab().then((module) => ({ Component: module.LabApiReferenceRoute })),
+          },
         ],
       },
       {
         path: paths.admin.path,
-        Component: AdminRoute,
+        lazy: () => admin().then((module) => ({ Component: module.AdminRoute })),
         children: [
-          { index: true, Component: AdminIndexRoute },
-          { path: paths.adminPeople.path, Component: AdminPeopleRoute },
-          { path: paths.adminQueues.path, Component: AdminQueuesRoute },
+          { index: true, lazy: () => admin().then((module) => ({ Component: module.AdminIndexRoute })) },
+          {
+            path: paths.adminPeople.path,
+            lazy: () => admin().then((module) => ({ Component: module.AdminPeopleRoute })),
+          },
+          {
+            path: paths.adminQueues.path,
+            lazy: () => admin().then((module) => ({ Component: module.AdminQueuesRoute })),
+          },
         ],
       },
       { path: '*', Component: NotFoundRoute },

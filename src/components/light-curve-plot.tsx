@@ -22,6 +22,15 @@ export interface PlotBand {
 export interface PlotMarker {
   x: number;
   label?: string;
+  /** amber (default) for a mark; ink for a cursor that only points at a time. */
+  tone?: 'amber' | 'ink';
+}
+
+export interface PlotLine {
+  /** Sorted ascending, in the plot's x unit; need not share the points' x values. */
+  x: readonly number[];
+  /** A non-finite value breaks the line (a gap in the data). */
+  y: readonly number[];
 }
 
 export interface LightCurvePlotProps {
@@ -34,7 +43,18 @@ export interface LightCurvePlotProps {
   label: string;
   bands?: readonly PlotBand[];
   markers?: readonly PlotMarker[];
+  /** The x axis's extent, when it should be fixed rather than follow the data (a snippet's whole window); not for zoomable plots. */
+  xMin?: number;
+  xMax?: number;
+  /** A line drawn over the points, such as binned means. */
+  line?: PlotLine | null;
   height?: number;
+  /** A tap or click on the chart (not a drag), with the x value under it. */
+  onTap?: (x: number) => void;
+  /** The x value under the pointer while it is over the chart, null when it leaves. */
+  onHover?: (x: number | null) => void;
+  /** Replaces the read-out under the chart (the Deck keeps its own controls there). */
+  hideReadout?: boolean;
   /** Drag across to zoom into a time range; double-click or the reset button to see it all again. */
   zoomable?: boolean;
   /** Unit words for the cursor read-out, e.g. "h" and "ppm". */
@@ -89,24 +109,33 @@ function PlotCanvas({
   label,
   bands = noBands,
   markers = noMarkers,
+  line = null,
+  xMin,
+  xMax,
   height = 280,
   zoomable = false,
   xUnit = '',
   yUnit = '',
+  onTap,
+  onHover,
+  hideReadout = false,
 }: LightCurvePlotProps) {
   const containerRef = useRef<HTMLDivElement>(null);
   const readoutRef = useRef<HTMLParagraphElement>(null);
   const plotRef = useRef<uPlot | null>(null);
   // Bands and markers are read by the draw hooks, so a new selection redraws without a new chart.
-  const overlayRef = useRef({ bands, markers });
+  const overlayRef = useRef({ bands, markers, line });
+  // Callbacks change identity on every render of the parent; the chart reads the latest through a ref.
+  const handlersRef = useRef({ onTap, onHover });
+  handlersRef.current = { onTap, onHover };
   const [zoomed, setZoomed] = useState(false);
   const hintId = useId();
 
   // Declared before the chart's own effect, so a new chart draws with the overlays of this render.
   useEffect(() => {
-    overlayRef.current = { bands, markers };
+    overlayRef.current = { bands, markers, line };
     plotRef.current?.redraw(false, false);
-  }, [bands, markers]);
+  }, [bands, markers, line]);
 
   useEffect(() => {
     const container = containerRef.current;
@@ -150,6 +179,36 @@ function PlotCanvas({
       ctx.restore();
     };
 
+    const drawLine = (u: uPlot) => {
+      const { ctx, bbox } = u;
+      const { line: current } = overlayRef.current;
+      if (!current || current.x.length < 2) return;
+      ctx.save();
+      ctx.beginPath();
+      ctx.rect(bbox.left, bbox.top, bbox.width, bbox.height);
+      ctx.clip();
+      ctx.strokeStyle = palette.ink;
+      ctx.globalAlpha = 0.85;
+      ctx.lineWidth = 2 * devicePixelRatio;
+      ctx.lineJoin = 'round';
+      ctx.beginPath();
+      let broken = true;
+      current.x.forEach((xValue, index) => {
+        const yValue = current.y[index]!;
+        if (!Number.isFinite(yValue)) {
+          broken = true;
+          return;
+        }
+        const left = u.valToPos(xValue, 'x', true);
+        const top = u.valToPos(yValue, 'y', true);
+        if (broken) ctx.moveTo(left, top);
+        else ctx.lineTo(left, top);
+        broken = false;
+      });
+      ctx.stroke();
+      ctx.restore();
+    };
+
     const drawMarkers = (u: uPlot) => {
       const { ctx, bbox } = u;
       const { markers: current } = overlayRef.current;
@@ -162,6 +221,16 @@ function PlotCanvas({
       for (const marker of current) {
         const left = u.valToPos(marker.x, 'x', true);
         if (left < bbox.left || left > bbox.left + bbox.width) continue;
+        if (marker.tone === 'ink') {
+          // A cursor: a thin solid line that points at a time without looking like a mark.
+          ctx.strokeStyle = palette.ink;
+          ctx.lineWidth = 1.5 * ratio;
+          ctx.beginPath();
+          ctx.moveTo(left, bbox.top);
+          ctx.lineTo(left, bbox.top + bbox.height);
+          ctx.stroke();
+          continue;
+        }
         ctx.strokeStyle = palette.amber;
         ctx.fillStyle = palette.amber;
         ctx.lineWidth = 2 * ratio;
@@ -194,7 +263,15 @@ function PlotCanvas({
       height,
       legend: { show: false },
       padding: [12, 12, 0, 0],
-      scales: { x: { time: false }, y: { auto: true } },
+      scales: {
+        x: {
+          time: false,
+          ...(xMin !== undefined && xMax !== undefined && xMax > xMin
+            ? { range: (): uPlot.Range.MinMax => [xMin, xMax] }
+            : {}),
+        },
+        y: { auto: true },
+      },
       cursor: {
         drag: { x: zoomable, y: false, setScale: zoomable },
         points: { show: false },
@@ -235,7 +312,7 @@ function PlotCanvas({
       ],
       hooks: {
         drawClear: [drawBands],
-        draw: [drawMarkers],
+        draw: [drawLine, drawMarkers],
         setScale: [
           (u, key) => {
             if (key !== 'x') return;
@@ -248,6 +325,11 @@ function PlotCanvas({
         ],
         setCursor: [
           (u) => {
+            const hover = handlersRef.current.onHover;
+            if (hover) {
+              const left = u.cursor.left;
+              hover(left === undefined || left < 0 ? null : u.posToVal(left, 'x'));
+            }
             const readout = readoutRef.current;
             if (!readout) return;
             const index = u.cursor.idx;
@@ -276,6 +358,23 @@ function PlotCanvas({
     plotRef.current = plot;
     setZoomed(false);
 
+    // A tap is a press and release close together; anything longer is a drag (of the Deck's card).
+    let pressed: { x: number; y: number } | null = null;
+    const over = plot.over;
+    const onPointerDown = (event: PointerEvent) => {
+      pressed = { x: event.clientX, y: event.clientY };
+    };
+    const onPointerUp = (event: PointerEvent) => {
+      const start = pressed;
+      pressed = null;
+      const tap = handlersRef.current.onTap;
+      if (!start || !tap || Math.hypot(event.clientX - start.x, event.clientY - start.y) > 10) return;
+      const rect = over.getBoundingClientRect();
+      tap(plot.posToVal(event.clientX - rect.left, 'x'));
+    };
+    over.addEventListener('pointerdown', onPointerDown);
+    over.addEventListener('pointerup', onPointerUp);
+
     const observer = new ResizeObserver(() => {
       const next = Math.max(200, container.clientWidth);
       if (next !== plot.width) plot.setSize({ width: next, height });
@@ -283,10 +382,12 @@ function PlotCanvas({
     observer.observe(container);
     return () => {
       observer.disconnect();
+      over.removeEventListener('pointerdown', onPointerDown);
+      over.removeEventListener('pointerup', onPointerUp);
       plot.destroy();
       plotRef.current = null;
     };
-  }, [x, y, xLabel, yLabel, height, zoomable, xUnit, yUnit]);
+  }, [x, y, xLabel, yLabel, height, zoomable, xUnit, yUnit, xMin, xMax]);
 
   function resetZoom() {
     const plot = plotRef.current;
@@ -303,7 +404,9 @@ function PlotCanvas({
         aria-describedby={zoomable ? hintId : undefined}
         className="w-full min-w-0 touch-pan-y"
       />
-      <figcaption className="flex flex-wrap items-center justify-between gap-x-4 gap-y-1">
+      <figcaption
+        className={`flex flex-wrap items-center justify-between gap-x-4 gap-y-1 ${hideReadout ? 'sr-only' : ''}`}
+      >
         <p ref={readoutRef} aria-hidden="true" className="tabular min-h-5 text-xs text-slate">
           {'\u00a0'}
         </p>

@@ -61,4 +61,9 @@ export const apiPaths = {
   tokens: () => `${env.VITE_API_BASE}/tokens`,
   token: (id: number) => `${env.VITE_API_BASE}/tokens/${id}`,
   openApi: () => `${env.VITE_API_BASE}/openapi.json`,
+  deckNext: () => `${env.VITE_API_BASE}/deck/next`,
+  verdicts: () => `${env.VITE_API_BASE}/verdicts`,
+  // Client ids are [A-Za-z0-9_-], but encoding keeps the path one segment whatever a stored entry holds.
+  verdict: (clientId: string) => `${env.VITE_API_BASE}/verdicts/${encodeURIComponent(clientId)}`,
+  record: () => `${env.VITE_API_BASE}/record`,
 } as const;

@@ -36,6 +36,14 @@ export interface SnippetListParams {
   pageSize: number;
 }
 
+export interface DeckNextParams {
+  /** A campaign id, or null for the newest live one. */
+  campaign: number | null;
+  count: number;
+  /** Snippet ids the client holds or has judged but not yet sent, oldest first. */
+  exclude: readonly number[];
+}
+
 export const queryKeys = {
   me: () => ['me', {}] as const,
   people: {
@@ -76,4 +84,12 @@ export const queryKeys = {
     list: () => ['tokens', {}] as const,
   },
   openApi: () => ['openapi', {}] as const,
+  deck: {
+    all: () => ['deck'] as const,
+    next: (params: DeckNextParams) => ['deck', params] as const,
+  },
+  record: {
+    all: () => ['record'] as const,
+    mine: () => ['record', {}] as const,
+  },
 } as const;

@@ -1,6 +1,7 @@
 // npm run bench [-- name-filter]: runs each benchmark module and prints one `name: value unit` per line.
 import * as auth from './auth.bench';
 import * as bls from './bls.bench';
+import * as client from './client.bench';
 import * as deck from './deck.bench';
 import { type Figure, formatFigure } from './figures';
 import * as pipeline from './pipeline.bench';
@@ -14,6 +15,7 @@ const BENCHMARKS: [name: string, run: () => Promise<Figure[]>][] = [
   ['pipeline', pipeline.run],
   ['bls', bls.run],
   ['deck', deck.run],
+  ['client', client.run],
 ];
 
 const filter = process.argv[2];

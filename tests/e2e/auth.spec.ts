@@ -165,7 +165,7 @@ describe('signing up, in and out', () => {
     await signIn(`${role}@demo.dipdeck.test`);
     await expectNavigation(allowed);
     if (role === 'volunteer') {
-      await page.getByRole('heading', { name: 'No snippets to judge yet' }).waitFor();
+      await page.getByRole('heading', { level: 1, name: 'Judge snippets' }).waitFor();
       await screenshots('deck');
     }
     await signOut();

@@ -47,9 +47,9 @@ export function HomeRoute() {
               </>
             ) : (
               <>
-                <ButtonLink to={paths.signUp.getHref()}>Create an account</ButtonLink>
-                <ButtonLink variant="secondary" to={paths.signIn.getHref()}>
-                  Sign in
+                <ButtonLink to={paths.deck.getHref()}>Try the Deck</ButtonLink>
+                <ButtonLink variant="secondary" to={paths.signUp.getHref()}>
+                  Create an account
                 </ButtonLink>
               </>
             )}
@@ -106,11 +106,19 @@ export function HomeRoute() {
         <section className="flex flex-col items-start gap-5 rounded-lg bg-ink px-6 py-8 text-paper md:flex-row md:items-center md:justify-between md:px-10">
           <div className="flex flex-col gap-1.5">
             <h2 className="text-xl font-semibold">Ready for your first snippet?</h2>
-            <p className="text-paper/90">An account takes a minute. You choose whether we ever e-mail you.</p>
+            <p className="text-paper/90">
+              Try twenty cards without an account. Sign up whenever you like: your verdicts come with you, and
+              you choose whether we ever e-mail you.
+            </p>
           </div>
-          <ButtonLink to={paths.signUp.getHref()} variant="secondary">
-            Create an account
-          </ButtonLink>
+          <div className="flex flex-wrap gap-3">
+            <ButtonLink to={paths.deck.getHref()} variant="secondary">
+              Open the Deck
+            </ButtonLink>
+            <ButtonLink to={paths.signUp.getHref()} variant="quiet" className="text-paper hover:text-ink">
+              Create an account
+            </ButtonLink>
+          </div>
         </section>
       )}
     </div>

@@ -1,9 +1,9 @@
 import type { ReactNode } from 'react';
 import { Badge } from '@/components/badge';
-import { EmptyState } from '@/components/empty-state';
 import { PageHeader } from '@/components/page-header';
 import { type Person, roleLabels } from '@/lib/person';
 import { EmailPreferences } from './email-preferences';
+import { RecordSummary } from './record-summary';
 
 const joinedFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
 
@@ -18,10 +18,13 @@ export function RecordPage({ person }: { person: Person }) {
       <PageHeader
         eyebrow="My record"
         title={person.displayName}
-        description="Your account, and soon the verdicts you gave and the dips you helped find."
+        description="Your verdicts, how you do on controls, the dips you helped find, and your account."
       />
 
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        <div className="min-w-0">
+          <RecordSummary />
+        </div>
         <div className="flex flex-col gap-6 self-start">
           <section aria-labelledby="account-heading" className="rounded-lg border border-line bg-surface">
             <h2 id="account-heading" className="border-b border-line px-5 py-4 text-lg font-semibold">
@@ -55,17 +58,6 @@ export function RecordPage({ person }: { person: Person }) {
           </section>
           <EmailPreferences person={person} />
         </div>
-
-        <EmptyState
-          title="No verdicts yet"
-          upcoming={[
-            'Every verdict you give in the Deck',
-            'Your accuracy on controls, the snippets whose answer is known',
-            'Dips and candidates credited to you',
-          ]}
-        >
-          <p>Once a campaign is live and you judge your first snippets, your record builds up here.</p>
-        </EmptyState>
       </div>
     </div>
   );
