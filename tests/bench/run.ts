@@ -3,6 +3,7 @@ import * as auth from './auth.bench';
 import * as bls from './bls.bench';
 import * as client from './client.bench';
 import * as deck from './deck.bench';
+import * as deckInp from './deck-inp.bench';
 import { type Figure, formatFigure } from './figures';
 import * as pipeline from './pipeline.bench';
 import * as queue from './queue.bench';
@@ -16,6 +17,7 @@ const BENCHMARKS: [name: string, run: () => Promise<Figure[]>][] = [
   ['bls', bls.run],
   ['deck', deck.run],
   ['client', client.run],
+  ['deck-inp', deckInp.run],
 ];
 
 const filter = process.argv[2];
