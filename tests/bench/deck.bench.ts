@@ -1,6 +1,7 @@
+import { spawn } from 'node:child_process';
 import { createHmac, randomUUID } from 'node:crypto';
 import fs from 'node:fs';
-import type { AddressInfo } from 'node:net';
+import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { performance } from 'node:perf_hooks';
@@ -12,7 +13,6 @@ import { loadConfig } from '../../server/config';
 import { createDb } from '../../server/db/knex';
 import { migrateLatest } from '../../server/db/migrate';
 import { nowIso } from '../../server/db/rows';
-import { createApp } from '../../server/http/app';
 import { type Figure, percentile } from './figures';
 
 // The Deck under load: 100,000 snippets and 20,000 volunteers in SQLite; GET /api/deck/next latency,
@@ -26,6 +26,16 @@ const DURATION_S = 8;
 // A signed session cookie as express-session makes it (cookie-signature: HMAC-SHA256, base64, no padding).
 const signedCookie = (sid: string, secret: string) =>
   `dipdeck.sid=${encodeURIComponent(`s:${sid}.${createHmac('sha256', secret).update(sid).digest('base64').replace(/=+$/, '')}`)}`;
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const probe = net.createServer().listen(0, '127.0.0.1', () => {
+      const { port } = probe.address() as net.AddressInfo;
+      probe.close(() => resolve(port));
+    });
+    probe.on('error', reject);
+  });
+}
 
 export async function run(): Promise<Figure[]> {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'dipdeck-deck-bench-'));
@@ -80,10 +90,32 @@ export async function run(): Promise<Figure[]> {
   });
   await db('sessions').insert(sessions.map((session) => session.row));
 
-  const { app } = createApp({ config, db });
-  const server = app.listen(0, '127.0.0.1');
-  await new Promise((resolve) => server.once('listening', resolve));
-  const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  await db.destroy();
+
+  // The server runs as its own process, as in production, so that the load generator does not share
+  // its event loop.
+  const port = await freePort();
+  const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    cwd: path.resolve(import.meta.dirname, '../..'),
+    env: {
+      ...process.env,
+      NODE_ENV: 'test',
+      DATA_DIR: dataDir,
+      DIPDECK_DEMO: '0',
+      PORT: String(port),
+      LOG_LEVEL: 'silent',
+    },
+    stdio: 'ignore',
+  });
+  const base = `http://127.0.0.1:${port}`;
+  for (let i = 0; i < 300; i += 1) {
+    const up = await fetch(`${base}/api/health`).then(
+      (response) => response.ok,
+      () => false,
+    );
+    if (up) break;
+    await new Promise((resolve) => setTimeout(resolve, 100));
+  }
 
   try {
     const latencies: number[] = [];
@@ -133,7 +165,11 @@ export async function run(): Promise<Figure[]> {
         },
       ],
     } as unknown as autocannon.Options);
-    const receipts = new Set<string>(await db('verdict_receipts').pluck('client_id'));
+    server.kill('SIGTERM');
+    await new Promise((resolve) => server.once('exit', resolve));
+    const check = createDb(config);
+    const receipts = new Set<string>(await check('verdict_receipts').pluck('client_id'));
+    await check.destroy();
     const lost = [...acknowledged].filter((clientId) => !receipts.has(clientId)).length;
     return [
       { name: 'deck.next_p50_ms', value: percentile(latencies, 50), unit: 'ms' },
@@ -143,10 +179,7 @@ export async function run(): Promise<Figure[]> {
       { name: 'deck.verdicts_lost', value: lost, unit: '' },
     ];
   } finally {
-    server.closeAllConnections();
-    await new Promise((resolve) => server.close(resolve));
-    await new Promise((resolve) => setTimeout(resolve, 200)); // let handlers still running finish
-    await db.destroy();
+    if (server.exitCode === null) server.kill('SIGKILL');
     fs.rmSync(dataDir, { recursive: true, force: true });
   }
 }
