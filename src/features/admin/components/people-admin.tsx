@@ -6,6 +6,7 @@ import { EmptyState } from '@/components/empty-state';
 import { ErrorBoundary } from '@/components/error-boundary';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
+import { Pager } from '@/components/pager';
 import { Select } from '@/components/select';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
 import { inputClasses } from '@/components/text-field';
@@ -125,9 +126,6 @@ function PeopleTable({ params, currentPersonId, onPage, onOutcome }: PeopleTable
   }
 
   const { total, page } = people.data;
-  const lastPage = Math.max(1, Math.ceil(total / params.pageSize));
-  const first = total === 0 ? 0 : (page - 1) * params.pageSize + 1;
-  const last = Math.min(total, page * params.pageSize);
 
   if (people.data.people.length === 0) {
     return (
@@ -158,24 +156,7 @@ function PeopleTable({ params, currentPersonId, onPage, onOutcome }: PeopleTable
           ))}
         </TableBody>
       </Table>
-      <nav aria-label="People pages" className="flex flex-wrap items-center justify-between gap-3">
-        <p className="text-sm text-muted">
-          <span className="tabular text-ink">
-            {first}–{last}
-          </span>{' '}
-          of <span className="tabular text-ink">{total}</span> people
-        </p>
-        {lastPage > 1 ? (
-          <div className="flex gap-2">
-            <Button variant="secondary" disabled={page <= 1} onClick={() => onPage(page - 1)}>
-              Previous
-            </Button>
-            <Button variant="secondary" disabled={page >= lastPage} onClick={() => onPage(page + 1)}>
-              Next
-            </Button>
-          </div>
-        ) : null}
-      </nav>
+      <Pager noun="people" page={page} pageSize={params.pageSize} total={total} onPage={onPage} />
     </div>
   );
 }

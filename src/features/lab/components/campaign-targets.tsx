@@ -4,6 +4,7 @@ import { Alert } from '@/components/alert';
 import { Badge } from '@/components/badge';
 import { Button } from '@/components/button';
 import { Loading } from '@/components/loading';
+import { Pager } from '@/components/pager';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
 import { inputClasses } from '@/components/text-field';
 import { paths } from '@/config/paths';
@@ -84,9 +85,6 @@ function TargetTable({
       </p>
     );
   }
-  const lastPage = Math.max(1, Math.ceil(total / pageSize));
-  const first = (targets.data.page - 1) * pageSize + 1;
-  const last = Math.min(total, targets.data.page * pageSize);
 
   return (
     <div className="flex flex-col gap-3" aria-busy={targets.isFetching || undefined}>
@@ -106,24 +104,7 @@ function TargetTable({
           ))}
         </TableBody>
       </Table>
-      <nav aria-label="Target pages" className="flex flex-wrap items-center justify-between gap-3">
-        <p className="text-sm text-muted">
-          <span className="tabular text-ink">
-            {first}–{last}
-          </span>{' '}
-          of <span className="tabular text-ink">{formatCount(total)}</span> targets
-        </p>
-        {lastPage > 1 ? (
-          <div className="flex gap-2">
-            <Button variant="secondary" disabled={page <= 1} onClick={() => onPage(page - 1)}>
-              Previous
-            </Button>
-            <Button variant="secondary" disabled={page >= lastPage} onClick={() => onPage(page + 1)}>
-              Next
-            </Button>
-          </div>
-        ) : null}
-      </nav>
+      <Pager noun="targets" page={targets.data.page} pageSize={pageSize} total={total} onPage={onPage} />
     </div>
   );
 }

@@ -7,6 +7,7 @@ import { EmptyState } from '@/components/empty-state';
 import { ErrorBoundary } from '@/components/error-boundary';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
+import { Pager } from '@/components/pager';
 import { Select } from '@/components/select';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
 import { inputClasses } from '@/components/text-field';
@@ -277,10 +278,6 @@ function SnippetTable({ params, selected, onChoose, onHover, onChange }: Snippet
     );
   }
 
-  const lastPage = Math.max(1, Math.ceil(total / params.pageSize));
-  const first = (page - 1) * params.pageSize + 1;
-  const last = Math.min(total, page * params.pageSize);
-
   function sortHeader(sort: SnippetSort, align: 'left' | 'right' = 'left') {
     const active = params.sort === sort;
     const nextOrder = active && params.order === 'asc' ? 'desc' : 'asc';
@@ -334,31 +331,13 @@ function SnippetTable({ params, selected, onChoose, onHover, onChange }: Snippet
           ))}
         </TableBody>
       </Table>
-      <nav aria-label="Snippet pages" className="flex flex-wrap items-center justify-between gap-3">
-        <p className="text-sm text-muted">
-          <span className="tabular text-ink">
-            {formatCount(first)}–{formatCount(last)}
-          </span>{' '}
-          of <span className="tabular text-ink">{formatCount(total)}</span> snippets
-        </p>
-        {lastPage > 1 ? (
-          <div className="flex items-center gap-2">
-            <Button variant="secondary" disabled={page <= 1} onClick={() => onChange({ page: page - 1 })}>
-              Previous
-            </Button>
-            <span className="tabular px-1 text-sm text-muted">
-              {page} / {lastPage}
-            </span>
-            <Button
-              variant="secondary"
-              disabled={page >= lastPage}
-              onClick={() => onChange({ page: page + 1 })}
-            >
-              Next
-            </Button>
-          </div>
-        ) : null}
-      </nav>
+      <Pager
+        noun="snippets"
+        page={page}
+        pageSize={params.pageSize}
+        total={total}
+        onPage={(next) => onChange({ page: next })}
+      />
     </div>
   );
 }
