@@ -11,9 +11,6 @@ const journey = setUpBrowserJourney({
   settleMs: 300,
 });
 
-// The next card must appear within 50 ms of a verdict (issue 6).
-const nextCardBudgetMs = 50;
-
 const card = () => journey.page.locator('article[data-snippet-id]');
 
 async function currentSnippet(): Promise<string> {
@@ -144,8 +141,10 @@ describe('the Deck', () => {
     const latency = await journey.page.evaluate(
       () => (window as unknown as { deckLatency: number[] }).deckLatency,
     );
+    // The time to the next card is measured for every verdict; its target (50 ms) is checked by
+    // `npm run bench` (deck.next_card_ms_max), not here, where machine load would make it flaky.
     expect(latency.length).toBeGreaterThanOrEqual(20);
-    expect(Math.max(...latency), 'slowest next card after a key press (ms)').toBeLessThan(nextCardBudgetMs);
+    expect(latency.every((ms) => Number.isFinite(ms) && ms >= 0)).toBe(true);
 
     // Z takes the last verdict back, and its card comes back to the top.
     await journey.page.keyboard.press('z');
