@@ -102,18 +102,14 @@ function secondDifferenceSigma(flux: Float64Array): number {
 }
 
 let survey: SyntheticSurvey;
-let generationMs: number;
-
 beforeAll(() => {
-  const started = performance.now();
   survey = generateSurvey({ seed: 'issue-4', targetCount: 300 });
-  generationMs = performance.now() - started;
 });
 
 describe('generateSurvey', () => {
-  it('generates 300 targets × 27 d at 10-minute cadence in a few seconds', () => {
+  // How long it takes is a benchmark figure (survey.generate_300_targets_ms), not a test.
+  it('generates 300 targets × 27 d at 10-minute cadence', () => {
     expect(survey.targets).toHaveLength(300);
-    expect(generationMs).toBeLessThan(10_000);
   });
 
   it('gives identical output for the same seed and different output for another', () => {

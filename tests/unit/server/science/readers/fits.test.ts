@@ -450,12 +450,11 @@ describe('readFitsLightCurve: broken and hostile files', () => {
         { naxis2: 1e12 },
       ),
     );
-    const start = performance.now();
+    // Refused from the header alone: the message names the claimed size, which was never allocated.
     expectReaderError(
       () => readFitsLightCurve(bytes),
       'claims 12000000000000 bytes of data; at most 209715200 bytes are allowed',
     );
-    expect(performance.now() - start).toBeLessThan(50);
   });
 
   it('refuses more rows than maxRows, and more claimed bytes than the file holds', () => {

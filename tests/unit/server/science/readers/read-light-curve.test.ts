@@ -98,7 +98,9 @@ describe('readLightCurve', () => {
 });
 
 // Safety: whatever the bytes, a reader returns a light curve or throws ReaderError, and soon.
-const TIME_LIMIT_MS = 250; // generous for a loaded CI machine; a typical case takes well under 1 ms
+// Not a speed target (those are benchmarks): a bound far above any real read (well under 1 ms), so
+// only a hang or a blow-up with input size fails it, even on a loaded machine.
+const TIME_LIMIT_MS = 2_000;
 
 function readsSafely(read: () => unknown): void {
   const start = performance.now();
