@@ -6,7 +6,7 @@ import { Loading } from '@/components/loading';
 import { type AreaKey, areaByKey } from '@/config/areas';
 import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
-import { takeSignedOutOnPurpose } from '@/features/auth/api/sign-out';
+import { signedOutJustNow } from '@/features/auth/api/sign-out';
 import { hasRole, type Person } from '@/lib/person';
 
 interface RequireAreaProps {
@@ -29,7 +29,7 @@ export function RequireArea({ area, children }: RequireAreaProps) {
   }
   if (!me.data) {
     // Signing out on a protected page leads home, not to the sign-in form.
-    if (takeSignedOutOnPurpose()) return <Navigate to={paths.home.getHref()} replace />;
+    if (signedOutJustNow()) return <Navigate to={paths.home.getHref()} replace />;
     return <Navigate to={paths.signIn.getHref(`${location.pathname}${location.search}`)} replace />;
   }
   const target = areaByKey(area);

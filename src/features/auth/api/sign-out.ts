@@ -11,11 +11,9 @@ export async function signOut(): Promise<void> {
 // rather than to the sign-in form (whatever order the navigation and the cache update land in).
 let signedOutOnPurposeAt = 0;
 
-/** True once, within a few seconds of a deliberate sign-out. */
-export function takeSignedOutOnPurpose(): boolean {
-  const recent = Date.now() - signedOutOnPurposeAt < 3_000;
-  signedOutOnPurposeAt = 0;
-  return recent;
+/** True for a few seconds after a deliberate sign-out. Reading it changes nothing, so renders stay pure. */
+export function signedOutJustNow(): boolean {
+  return Date.now() - signedOutOnPurposeAt < 3_000;
 }
 
 /** Drops everything cached for the person who signed out, and records that nobody is signed in. */
