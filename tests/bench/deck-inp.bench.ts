@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { startAppServer } from '../e2e/support/app-server';
 import { launchBrowser } from '../e2e/support/browser';
+import { nextCardLatencies, watchNextCardLatency } from '../e2e/support/next-card-latency';
 import { type Figure, percentile } from './figures';
 
 // Interaction to Next Paint on the Deck as a mid-range phone would feel it: Chromium at 375 px with its
@@ -32,23 +33,8 @@ export async function run(): Promise<Figure[]> {
     const skip = page.getByRole('button', { name: /Skip/ });
     if (await skip.count()) await skip.first().click();
     await page.locator('article[data-snippet-id] .light-curve-plot canvas').waitFor();
+    await watchNextCardLatency(page);
     await page.evaluate(() => {
-      // From each key press to the moment the card on screen changes (the 50 ms target).
-      const samples: number[] = [];
-      (window as unknown as { deckLatency: number[] }).deckLatency = samples;
-      let pressedAt: number | null = null;
-      window.addEventListener(
-        'keydown',
-        () => {
-          pressedAt = performance.now();
-        },
-        { capture: true },
-      );
-      new MutationObserver(() => {
-        if (pressedAt === null) return;
-        samples.push(performance.now() - pressedAt);
-        pressedAt = null;
-      }).observe(document.body, { subtree: true, attributes: true, attributeFilter: ['data-snippet-id'] });
       // One interaction (keydown + keyup) counts once, at its slowest event (the INP definition).
       const byInteraction = new Map<number, number>();
       (window as unknown as { __durations: () => number[] }).__durations = () => [...byInteraction.values()];
@@ -81,9 +67,7 @@ export async function run(): Promise<Figure[]> {
           ? percentile(durations, 98)
           : durations[durations.length - 1]!;
     // The Deck records, for each verdict, the time until the next card was on screen.
-    const nextCard = await page.evaluate(
-      () => (window as unknown as { deckLatency?: number[] }).deckLatency ?? [],
-    );
+    const nextCard = await nextCardLatencies(page);
     return [
       { name: 'deck.inp_ms_cpu4x', value: inp, unit: 'ms' },
       {

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { setUpBrowserJourney } from './support/journey';
+import { nextCardLatencies, watchNextCardLatency } from './support/next-card-latency';
 
 // With the network cut on purpose, Chromium logs every request the outbox and the queue try.
 const offlineNoise = /net::ERR_INTERNET_DISCONNECTED/;
@@ -28,27 +29,6 @@ async function nextCardAfter(previous: string) {
     previous,
     { timeout: 10_000 },
   );
-}
-
-/** Times, in the journey.page, from each key press to the moment the card on screen changes. */
-async function watchNextCardLatency() {
-  await journey.page.evaluate(() => {
-    const samples: number[] = [];
-    (window as unknown as { deckLatency: number[] }).deckLatency = samples;
-    let pressedAt: number | null = null;
-    window.addEventListener(
-      'keydown',
-      () => {
-        pressedAt = performance.now();
-      },
-      { capture: true },
-    );
-    new MutationObserver(() => {
-      if (pressedAt === null) return;
-      samples.push(performance.now() - pressedAt);
-      pressedAt = null;
-    }).observe(document.body, { subtree: true, attributes: true, attributeFilter: ['data-snippet-id'] });
-  });
 }
 
 async function waitForCardsAhead(count: number) {
@@ -119,7 +99,7 @@ describe('the Deck', () => {
       'yes',
     );
 
-    await watchNextCardLatency();
+    await watchNextCardLatency(journey.page);
     const keys = ['ArrowLeft', 'ArrowRight', 'ArrowUp'] as const;
     let previous = '';
     for (let index = 0; index < 20; index += 1) {
@@ -138,9 +118,7 @@ describe('the Deck', () => {
       await nextCardAfter(id);
       previous = id;
     }
-    const latency = await journey.page.evaluate(
-      () => (window as unknown as { deckLatency: number[] }).deckLatency,
-    );
+    const latency = await nextCardLatencies(journey.page);
     // The time to the next card is measured for every verdict; its target (50 ms) is checked by
     // `npm run bench` (deck.next_card_ms_max), not here, where machine load would make it flaky.
     expect(latency.length).toBeGreaterThanOrEqual(20);
