@@ -2,7 +2,7 @@ import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import type { Config } from '../config';
 import type { Db } from '../db/knex';
-import { findPersonById, type PersonRow } from '../db/people';
+import { findPersonForRequest, type PersonRow } from '../db/people';
 import { checkCredentials } from '../services/auth/check-credentials';
 
 declare global {
@@ -43,7 +43,7 @@ export function createPassport(db: Db, config: Pick<Config, 'sessionAbsoluteMs'>
       done(null, false);
       return;
     }
-    findPersonById(db, stored.id).then((person) => {
+    findPersonForRequest(db, stored.id).then((person) => {
       const revoked = person?.sessionsValidAfter && Date.parse(person.sessionsValidAfter) > signedInAt;
       done(null, person && !person.deletedAt && !revoked ? person : false);
     }, done);

@@ -8,18 +8,79 @@ export const sessionCookieName = (config: Pick<Config, 'isProduction'>): string 
   // __Host- makes the browser insist on Secure, Path=/ and no Domain (RFC 6265bis §4.1.3.2).
   config.isProduction ? '__Host-dipdeck.sid' : 'dipdeck.sid';
 
-/**
- * Sessions live in the `sessions` table. The idle timeout is the cookie's rolling max-age (and the
- * row's expiry); the absolute timeout is checked against the sign-in time in server/auth/passport.ts.
- */
-/**
- * The Knex store, touching each session's expiry at most once a minute: a rolling session would
- * otherwise cost a database write on every request, and the idle timeout is days, not seconds.
- */
-class ThrottledTouchStore extends ConnectSessionKnexStore {
-  private readonly touchedAt = new Map<string, number>();
+/** How long a session read is reused; see SessionStore. */
+export const SESSION_CACHE_MS = 5_000;
 
-  override async touch(sid: string, session: session.SessionData, callback?: () => void): Promise<void> {
+type Callback = (error?: unknown, session?: session.SessionData | null) => void;
+
+/**
+ * Sessions live in the `sessions` table, through the Knex store, with two savings for the request
+ * path. Reads are kept for SESSION_CACHE_MS: reading the row was, with the person's, most of the
+ * cost of a small API request. This process's own writes and sign-outs update the copy at once; a
+ * sign-out handled by another server process shows here within that time. And each session's expiry
+ * is touched at most once a minute: a rolling session would otherwise cost a write on every request,
+ * and the idle timeout is days, not seconds.
+ *
+ * The idle timeout is the cookie's rolling max-age (and the row's expiry); the absolute timeout is
+ * checked against the sign-in time in server/auth/passport.ts.
+ */
+class SessionStore extends ConnectSessionKnexStore {
+  private readonly touchedAt = new Map<string, number>();
+  private readonly recent = new Map<string, { json: string; expiresAt: number; readAt: number }>();
+
+  private remember(sid: string, data: session.SessionData): void {
+    if (this.recent.size >= 50_000) this.recent.clear();
+    const expires = data.cookie?.expires;
+    const expiresAt = expires ? new Date(expires).getTime() : Number.POSITIVE_INFINITY;
+    this.recent.set(sid, { json: JSON.stringify(data), expiresAt, readAt: Date.now() });
+  }
+
+  override async get(sid: string, callback?: Callback): Promise<session.SessionData | null> {
+    const now = Date.now();
+    const kept = this.recent.get(sid);
+    if (kept && now - kept.readAt < SESSION_CACHE_MS && kept.expiresAt > now) {
+      // A fresh object each time: express-session changes the session it is given.
+      const data = JSON.parse(kept.json) as session.SessionData;
+      callback?.(null, data);
+      return data;
+    }
+    this.recent.delete(sid);
+    try {
+      const data = (await super.get(sid)) as session.SessionData | null;
+      if (data) this.remember(sid, data);
+      callback?.(null, data);
+      return data;
+    } catch (error) {
+      callback?.(error);
+      return null;
+    }
+  }
+
+  override async set(sid: string, data: session.SessionData, callback?: (error?: unknown) => void) {
+    this.recent.delete(sid);
+    try {
+      await super.set(sid, data);
+      this.remember(sid, data);
+      callback?.();
+    } catch (error) {
+      callback?.(error);
+    }
+  }
+
+  override async destroy(sid: string, callback?: (error?: unknown) => void) {
+    this.recent.delete(sid);
+    this.touchedAt.delete(sid);
+    try {
+      const result = await super.destroy(sid);
+      callback?.();
+      return result;
+    } catch (error) {
+      callback?.(error);
+      return 0;
+    }
+  }
+
+  override async touch(sid: string, data: session.SessionData, callback?: () => void): Promise<void> {
     const now = Date.now();
     const last = this.touchedAt.get(sid);
     if (last !== undefined && now - last < 60_000) {
@@ -28,12 +89,14 @@ class ThrottledTouchStore extends ConnectSessionKnexStore {
     }
     if (this.touchedAt.size > 50_000) this.touchedAt.clear();
     this.touchedAt.set(sid, now);
-    return super.touch(sid, session, callback);
+    const kept = this.recent.get(sid);
+    if (kept && data.cookie?.expires) kept.expiresAt = new Date(data.cookie.expires).getTime();
+    return super.touch(sid, data, callback);
   }
 }
 
 export function sessionMiddleware(config: Config, db: Db, secret: string): RequestHandler {
-  const store = new ThrottledTouchStore({
+  const store = new SessionStore({
     knex: db,
     tableName: 'sessions',
     createTable: false,

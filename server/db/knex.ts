@@ -3,6 +3,7 @@ import path from 'node:path';
 import knex, { type Knex } from 'knex';
 import type { Config } from '../config';
 import { migrationSource } from './migration-list';
+import { CachedStatementsSqliteClient } from './sqlite-client';
 
 export type Db = Knex;
 
@@ -19,7 +20,7 @@ export function knexSettings(config: Pick<Config, 'databaseUrl' | 'sqliteFile'>)
     return { client: 'pg', connection: config.databaseUrl, pool: { min: 0, max: 10 }, migrations };
   }
   return {
-    client: 'better-sqlite3',
+    client: CachedStatementsSqliteClient,
     connection: { filename: config.sqliteFile },
     useNullAsDefault: true,
     // better-sqlite3 is synchronous: one connection per process, so statements queue instead of contending.
@@ -52,4 +53,4 @@ export function createDb(config: Pick<Config, 'databaseUrl' | 'sqliteFile'>): Db
   return knex(knexSettings(config));
 }
 
-export const isSqlite = (db: Db): boolean => db.client.config.client === 'better-sqlite3';
+export const isSqlite = (db: Db): boolean => db.client.dialect === 'sqlite3';

@@ -1,3 +1,4 @@
+import type { Knex } from 'knex';
 import type { Role } from '../auth/roles';
 import type { Db } from './knex';
 import { nowIso, toBool, toIso, toIsoOrNull } from './rows';
@@ -47,6 +48,47 @@ export async function findPersonById(db: Db, id: number): Promise<PersonRow | un
   return row ? toPerson(row) : undefined;
 }
 
+/**
+ * How long a person read for a request's sign-in check is reused. Every request of a signed-in person
+ * needs their row (role, suspension, revoked sessions); under load this read was a third of the work
+ * of recording a verdict. Writes made through this module forget the person at once; a write by
+ * another process (a second server, the worker) shows within this time.
+ */
+export const PERSON_CACHE_MS = 2_000;
+
+type PersonCache = Map<number, { person: PersonRow | undefined; readAt: number }>;
+// Keyed by the database's configuration, which a transaction shares with the Knex instance it came from.
+const personCaches = new WeakMap<object, PersonCache>();
+
+function personCache(db: Db): PersonCache {
+  const key = db.client.config as object;
+  let cache = personCaches.get(key);
+  if (!cache) {
+    cache = new Map();
+    personCaches.set(key, cache);
+  }
+  return cache;
+}
+
+function forgetPerson(db: Db, id: number): void {
+  const cache = personCache(db);
+  cache.delete(id);
+  // Inside a transaction, also once it ends: a read on another connection may have cached the old row.
+  if (db.isTransaction)
+    (db as Knex.Transaction).executionPromise.finally(() => cache.delete(id)).catch(() => {});
+}
+
+/** The person, as read at most PERSON_CACHE_MS ago: for the sign-in check on every request. */
+export async function findPersonForRequest(db: Db, id: number): Promise<PersonRow | undefined> {
+  const cache = personCache(db);
+  const cached = cache.get(id);
+  if (cached && Date.now() - cached.readAt < PERSON_CACHE_MS) return cached.person;
+  const person = await findPersonById(db, id);
+  if (cache.size >= 50_000) cache.clear();
+  cache.set(id, { person, readAt: Date.now() });
+  return person;
+}
+
 export async function findPersonByEmail(
   db: Db,
   email: string,
@@ -94,6 +136,7 @@ export async function insertPerson(db: Db, person: NewPerson): Promise<PersonRow
 
 export async function updatePasswordHash(db: Db, id: number, passwordHash: string): Promise<void> {
   await db('people').where({ id }).update({ password_hash: passwordHash, updated_at: nowIso() });
+  forgetPerson(db, id);
 }
 
 export interface PersonChanges {
@@ -121,12 +164,14 @@ export async function updatePerson(
     update.newsletter_opt_in_at = changes.newsletterOptIn ? update.updated_at : null;
   }
   const rows = await db('people').where({ id }).update(update).returning('*');
+  forgetPerson(db, id);
   const row = rows[0];
   return row ? toPerson(row) : undefined;
 }
 
-export async function touchLastActive(db: Db, id: number): Promise<void> {
-  await db('people').where({ id }).update({ last_active_at: nowIso() });
+export async function touchLastActive(db: Db, id: number, at: string = nowIso()): Promise<void> {
+  await db('people').where({ id }).update({ last_active_at: at });
+  forgetPerson(db, id);
 }
 
 export interface PeopleQuery {

@@ -1,6 +1,5 @@
 import express, { type Express } from 'express';
 import helmet from 'helmet';
-import { pinoHttp } from 'pino-http';
 import type { Queues } from '../../worker/queues';
 import { bearerAuthentication } from '../auth/bearer';
 import { createPassport } from '../auth/passport';
@@ -10,8 +9,9 @@ import type { Config } from '../config';
 import type { Db } from '../db/knex';
 import { createLogger, type Logger } from '../logger';
 import type { AppDeps } from './app-deps';
-import { mountRoute } from './define-route';
+import { mountRoutes } from './define-route';
 import { apiNotFound, errorHandler } from './error-handler';
+import { requestLog } from './request-log';
 import { routeTable } from './route-table';
 import { staticClient } from './static-client';
 
@@ -46,21 +46,7 @@ export function createApp(options: AppOptions): { app: Express; deps: AppDeps } 
       },
     }),
   );
-  app.use(
-    pinoHttp({
-      logger,
-      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
-      serializers: {
-        req: (req: { id: unknown; method: string; url: string }) => ({
-          id: req.id,
-          method: req.method,
-          url: req.url,
-        }),
-        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
-      },
-      customProps: (req) => ({ personId: req.user?.id }),
-    }),
-  );
+  app.use(requestLog(logger));
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
@@ -72,7 +58,7 @@ export function createApp(options: AppOptions): { app: Express; deps: AppDeps } 
   api.use(deps.passport.initialize());
   api.use(deps.passport.session());
   api.use(bearerAuthentication(db, logger));
-  for (const route of routeTable(deps)) mountRoute(api, route);
+  mountRoutes(api, routeTable(deps));
   api.use(apiNotFound);
   api.use(errorHandler);
 

@@ -3,6 +3,7 @@ import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { createCampaign } from '../../seeds/factories/campaigns';
 import { createSnippetFixtures } from '../../seeds/factories/snippets';
+import { updatePerson } from '../../server/db/people';
 import { createRandom } from '../../server/science/random';
 import { nextCards } from '../../server/services/deck/next-cards';
 import { Browser, createTestApp, signedIn, type TestApp } from './support/test-app';
@@ -119,7 +120,7 @@ describe('GET /api/deck/next', () => {
       expect(response.status, status).toBe(409);
       expect(response.body.error.code).toBe('campaign_not_live');
     }
-    await test.db('people').where({ id: person.id }).update({ suspended_at: new Date().toISOString() });
+    await updatePerson(test.db, person.id, { suspendedAt: new Date().toISOString() });
     const suspended = await browser.get(`/api/deck/next?campaign=${campaignId}`);
     expect(suspended.body).toEqual({ cards: [], reason: 'suspended' });
     expect((await browser.post('/api/verdicts', verdict(fixtures.snippetIds.real[0]!))).status).toBe(403);

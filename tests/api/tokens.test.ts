@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { updatePerson } from '../../server/db/people';
 import { createTestApp, signedIn, type TestApp } from './support/test-app';
 
 let test: TestApp;
@@ -35,10 +36,10 @@ describe('API tokens', () => {
   it('carries the owner’s current role, and a revoked or wrong token is refused with 401', async () => {
     const { browser, person } = await signedIn(test, 'scientist');
     const { secret, token } = (await browser.post('/api/tokens', { name: 'pipeline' })).body;
-    await test.db('people').where({ id: person.id }).update({ role: 'volunteer' });
+    await updatePerson(test.db, person.id, { role: 'volunteer' });
     const demoted = await request(test.app).get('/api/campaigns').set('Authorization', `Bearer ${secret}`);
     expect(demoted.status).toBe(403);
-    await test.db('people').where({ id: person.id }).update({ role: 'scientist' });
+    await updatePerson(test.db, person.id, { role: 'scientist' });
     expect((await browser.delete(`/api/tokens/${token.id}`)).status).toBe(204);
     const revoked = await request(test.app).get('/api/campaigns').set('Authorization', `Bearer ${secret}`);
     expect(revoked.status).toBe(401);

@@ -1,6 +1,8 @@
 import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
+import { createGroupCommit, type GroupCommit } from '../../db/group-commit';
 import type { Db } from '../../db/knex';
+import { touchLastActive } from '../../db/people';
 import { fromJson, nowIso, toIso } from '../../db/rows';
 import { writeTransaction } from '../../db/transaction';
 import { AppError, notFound } from '../../errors';
@@ -90,121 +92,140 @@ const judgeWhere = (judge: Judge) =>
  * never applied twice. One verdict per judge and snippet: a later one with a new id changes it while the
  * snippet is open. Only signed-in people's verdicts count (a guest's count once they sign up).
  */
-export async function recordVerdict(
-  db: Db,
+type RecordedVerdict = { created: boolean; verdict: VerdictView; reveal: Reveal };
+
+// Verdicts arriving together share a transaction, which recordVerdictIn allows: it checks before it writes.
+const verdictCommits = new WeakMap<Db, GroupCommit<{ judge: Judge; input: VerdictInput }, RecordedVerdict>>();
+
+export async function recordVerdict(db: Db, judge: Judge, input: VerdictInput): Promise<RecordedVerdict> {
+  let commits = verdictCommits.get(db);
+  if (!commits) {
+    commits = createGroupCommit(db, (trx, { judge, input }) => recordVerdictIn(trx, judge, input));
+    verdictCommits.set(db, commits);
+  }
+  return commits.submit({ judge, input });
+}
+
+// What judging a snippet needs to know of it; not its display series, which is most of its row.
+const SNIPPET_FOR_VERDICT = [
+  'snippets.id',
+  'snippets.kind',
+  'snippets.state',
+  'snippets.time_start',
+  'snippets.time_end',
+  'snippets.planted_truth',
+  'campaigns.status as campaign_status',
+  'campaigns.feedback_rate',
+  'targets.designation',
+];
+
+const snippetForVerdict = (trx: Knex.Transaction, snippetId: number) =>
+  trx('snippets')
+    .join('campaigns', 'campaigns.id', 'snippets.campaign_id')
+    .join('targets', 'targets.id', 'snippets.target_id')
+    .where('snippets.id', snippetId)
+    .first(SNIPPET_FOR_VERDICT);
+
+async function recordVerdictIn(
+  trx: Knex.Transaction,
   judge: Judge,
   input: VerdictInput,
-): Promise<{ created: boolean; verdict: VerdictView; reveal: Reveal }> {
-  return writeTransaction(db, async (trx) => {
-    const receipt = await trx('verdict_receipts').where({ client_id: input.clientId }).first('verdict_id');
-    if (receipt) {
-      const existing = await trx('verdicts').where({ id: receipt.verdict_id }).first();
-      const mine =
-        existing &&
-        (judge.personId ? existing.person_id === judge.personId : existing.guest_key === judge.guestKey);
-      if (!mine)
-        throw new AppError('client_id_taken', 'This verdict id belongs to another verdict', 'conflict', {
-          clientId: 'Already used',
-        });
-      const snippet = await trx('snippets')
-        .join('campaigns', 'campaigns.id', 'snippets.campaign_id')
-        .join('targets', 'targets.id', 'snippets.target_id')
-        .where('snippets.id', existing.snippet_id)
-        .first('snippets.*', 'campaigns.feedback_rate', 'targets.designation');
-      return {
-        created: false,
-        verdict: toView(existing, input.clientId),
-        reveal: await reveal(trx, snippet, judge, Number(snippet.feedback_rate)),
-      };
-    }
-
-    const snippet = await trx('snippets')
-      .join('campaigns', 'campaigns.id', 'snippets.campaign_id')
-      .join('targets', 'targets.id', 'snippets.target_id')
-      .where('snippets.id', input.snippetId)
-      .first(
-        'snippets.*',
-        'campaigns.status as campaign_status',
-        'campaigns.feedback_rate',
-        'targets.designation',
-      );
-    if (!snippet)
-      throw new AppError('validation_failed', 'No such snippet', 'invalid', { snippetId: 'Unknown snippet' });
-    if (snippet.campaign_status !== 'live') {
-      throw new AppError('campaign_not_live', 'This campaign is not taking verdicts now', 'conflict');
-    }
-    if (snippet.state !== 'open')
-      throw new AppError('snippet_not_open', 'This snippet is already settled', 'conflict');
-    if (input.markTime !== undefined && input.markTime !== null) {
-      const start = Number(snippet.time_start);
-      const end = Number(snippet.time_end);
-      if (!(input.markTime >= start && input.markTime <= end)) {
-        throw new AppError('validation_failed', 'The mark is outside the snippet', 'invalid', {
-          markTime: `Must be within the snippet, ${start} to ${end}`,
-        });
-      }
-    }
-    if (judge.guestKey) {
-      const [count] = await trx('verdicts')
-        .where({ guest_key: judge.guestKey })
-        .count<{ n: number }[]>({ n: '*' });
-      if (Number(count?.n ?? 0) >= GUEST_VERDICT_LIMIT) {
-        throw new AppError(
-          'guest_limit',
-          `Visitors can judge ${GUEST_VERDICT_LIMIT} cards: sign up to keep going (your verdicts come with you)`,
-          'forbidden',
-        );
-      }
-    }
-    const now = nowIso();
-    const fields = {
-      answer: input.answer,
-      mark_time: input.answer === 'dip' ? (input.markTime ?? null) : null,
-      elapsed_ms: input.elapsedMs ?? null,
-      withdrawn_at: null,
-      updated_at: now,
-    };
-    const existing = await trx('verdicts')
-      .where({ snippet_id: input.snippetId, ...judgeWhere(judge) })
-      .first();
-    let row: Record<string, unknown>;
-    let counted = 0; // how much the snippet's count of counting verdicts grows
-    if (existing) {
-      [row] = await trx('verdicts')
-        .where({ id: existing.id })
-        .update({ ...fields, client_id: input.clientId })
-        .returning('*');
-      if (existing.withdrawn_at && judge.personId) counted = 1;
-    } else {
-      [row] = await trx('verdicts')
-        .insert({
-          ...fields,
-          client_id: input.clientId,
-          snippet_id: input.snippetId,
-          person_id: judge.personId ?? null,
-          guest_key: judge.guestKey ?? null,
-          created_at: now,
-        })
-        .returning('*');
-      if (judge.personId) counted = 1;
-    }
-    await trx('verdict_receipts').insert({ client_id: input.clientId, verdict_id: row!.id, created_at: now });
-    // The consensus job rescores snippets marked so (the consensus issue); a guest's verdict does not count.
-    if (judge.personId) {
-      await trx('snippets')
-        .where({ id: input.snippetId })
-        .update({ needs_rescore: true, verdict_count: trx.raw('verdict_count + ?', [counted]) });
-      // "Last active" is for the audit's eyes: minutes are precise enough, and it saves a write per verdict.
-      if (!judge.lastActiveAt || Date.parse(now) - Date.parse(judge.lastActiveAt) > 5 * 60_000) {
-        await trx('people').where({ id: judge.personId }).update({ last_active_at: now });
-      }
-    }
+): Promise<RecordedVerdict> {
+  const receipt = await trx('verdict_receipts').where({ client_id: input.clientId }).first('verdict_id');
+  if (receipt) {
+    const existing = await trx('verdicts').where({ id: receipt.verdict_id }).first();
+    const mine =
+      existing &&
+      (judge.personId ? existing.person_id === judge.personId : existing.guest_key === judge.guestKey);
+    if (!mine)
+      throw new AppError('client_id_taken', 'This verdict id belongs to another verdict', 'conflict', {
+        clientId: 'Already used',
+      });
+    const snippet = await snippetForVerdict(trx, Number(existing.snippet_id));
     return {
-      created: true,
-      verdict: toView(row!, input.clientId),
+      created: false,
+      verdict: toView(existing, input.clientId),
       reveal: await reveal(trx, snippet, judge, Number(snippet.feedback_rate)),
     };
-  });
+  }
+
+  const snippet = await snippetForVerdict(trx, input.snippetId);
+  if (!snippet)
+    throw new AppError('validation_failed', 'No such snippet', 'invalid', { snippetId: 'Unknown snippet' });
+  if (snippet.campaign_status !== 'live') {
+    throw new AppError('campaign_not_live', 'This campaign is not taking verdicts now', 'conflict');
+  }
+  if (snippet.state !== 'open')
+    throw new AppError('snippet_not_open', 'This snippet is already settled', 'conflict');
+  if (input.markTime !== undefined && input.markTime !== null) {
+    const start = Number(snippet.time_start);
+    const end = Number(snippet.time_end);
+    if (!(input.markTime >= start && input.markTime <= end)) {
+      throw new AppError('validation_failed', 'The mark is outside the snippet', 'invalid', {
+        markTime: `Must be within the snippet, ${start} to ${end}`,
+      });
+    }
+  }
+  if (judge.guestKey) {
+    const [count] = await trx('verdicts')
+      .where({ guest_key: judge.guestKey })
+      .count<{ n: number }[]>({ n: '*' });
+    if (Number(count?.n ?? 0) >= GUEST_VERDICT_LIMIT) {
+      throw new AppError(
+        'guest_limit',
+        `Visitors can judge ${GUEST_VERDICT_LIMIT} cards: sign up to keep going (your verdicts come with you)`,
+        'forbidden',
+      );
+    }
+  }
+  const now = nowIso();
+  const fields = {
+    answer: input.answer,
+    mark_time: input.answer === 'dip' ? (input.markTime ?? null) : null,
+    elapsed_ms: input.elapsedMs ?? null,
+    withdrawn_at: null,
+    updated_at: now,
+  };
+  const existing = await trx('verdicts')
+    .where({ snippet_id: input.snippetId, ...judgeWhere(judge) })
+    .first();
+  let row: Record<string, unknown>;
+  let counted = 0; // how much the snippet's count of counting verdicts grows
+  if (existing) {
+    [row] = await trx('verdicts')
+      .where({ id: existing.id })
+      .update({ ...fields, client_id: input.clientId })
+      .returning('*');
+    if (existing.withdrawn_at && judge.personId) counted = 1;
+  } else {
+    [row] = await trx('verdicts')
+      .insert({
+        ...fields,
+        client_id: input.clientId,
+        snippet_id: input.snippetId,
+        person_id: judge.personId ?? null,
+        guest_key: judge.guestKey ?? null,
+        created_at: now,
+      })
+      .returning('*');
+    if (judge.personId) counted = 1;
+  }
+  await trx('verdict_receipts').insert({ client_id: input.clientId, verdict_id: row!.id, created_at: now });
+  // The consensus job rescores snippets marked so (the consensus issue); a guest's verdict does not count.
+  if (judge.personId) {
+    await trx('snippets')
+      .where({ id: input.snippetId })
+      .update({ needs_rescore: true, verdict_count: trx.raw('verdict_count + ?', [counted]) });
+    // "Last active" is for the audit's eyes: minutes are precise enough, and it saves a write per verdict.
+    if (!judge.lastActiveAt || Date.parse(now) - Date.parse(judge.lastActiveAt) > 5 * 60_000) {
+      await touchLastActive(trx, judge.personId, now);
+    }
+  }
+  return {
+    created: true,
+    verdict: toView(row!, input.clientId),
+    reveal: await reveal(trx, snippet, judge, Number(snippet.feedback_rate)),
+  };
 }
 
 /** Takes back a verdict within 15 seconds, while its snippet is still open. */

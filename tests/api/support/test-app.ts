@@ -4,7 +4,7 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Express } from 'express';
 import request from 'supertest';
-import { afterAll } from 'vitest';
+import { afterAll, vi } from 'vitest';
 import { createPerson } from '../../../seeds/factories/people';
 import type { Role } from '../../../server/auth/roles';
 import { type Config, loadConfig } from '../../../server/config';
@@ -124,4 +124,15 @@ export async function signedIn(test: TestApp, role: Role): Promise<{ browser: Br
 export function sessionCookie(response: request.Response): string | undefined {
   const cookies = ([] as string[]).concat(response.headers['set-cookie'] ?? []);
   return cookies.find((cookie) => cookie.startsWith('dipdeck.sid='))?.split(';')[0];
+}
+
+/** Runs `check` with the clock moved on by `ms` (and a little), as if that much time had passed. */
+export async function afterMs(ms: number, check: () => Promise<void>): Promise<void> {
+  vi.useFakeTimers({ toFake: ['Date'] });
+  vi.setSystemTime(Date.now() + ms + 1);
+  try {
+    await check();
+  } finally {
+    vi.useRealTimers();
+  }
 }
