@@ -1,5 +1,5 @@
 import 'uplot/dist/uPlot.min.css';
-import { useEffect, useId, useRef, useState } from 'react';
+import { useEffect, useId, useMemo, useRef, useState } from 'react';
 import uPlot from 'uplot';
 import { Alert } from '@/components/alert';
 import { Button } from '@/components/button';
@@ -131,6 +131,16 @@ function PlotCanvas({
   const [zoomed, setZoomed] = useState(false);
   const hintId = useId();
 
+  // The points, and the x extent, go to the chart in place: making a chart costs a phone tens of
+  // milliseconds, and the Deck shows a new snippet after every verdict.
+  const data = useMemo(
+    () => ({ xs: Float64Array.from(x), ys: y.map((value) => (value === null ? null : value)) }),
+    [x, y],
+  );
+  const dataRef = useRef({ data, xMin, xMax });
+  const fixedRange = xMin !== undefined && xMax !== undefined;
+  const pointSize = x.length > 4000 ? 2 : x.length > 800 ? 3 : 4;
+
   // Declared before the chart's own effect, so a new chart draws with the overlays of this render.
   useEffect(() => {
     overlayRef.current = { bands, markers, line };
@@ -138,12 +148,19 @@ function PlotCanvas({
   }, [bands, markers, line]);
 
   useEffect(() => {
+    dataRef.current = { data, xMin, xMax };
+    const plot = plotRef.current;
+    if (!plot || plot.data[0] === data.xs) return;
+    plot.setData([data.xs, data.ys] as uPlot.AlignedData);
+    setZoomed(false);
+  }, [data, xMin, xMax]);
+
+  useEffect(() => {
     const container = containerRef.current;
     if (!container) return;
-    const xs = Float64Array.from(x);
-    const ys = y.map((value) => (value === null ? null : value));
-    const pointSize = x.length > 4000 ? 2 : x.length > 800 ? 3 : 4;
     const width = Math.max(200, container.clientWidth);
+    const { xs, ys } = dataRef.current.data;
+    const current = () => dataRef.current.data;
 
     const drawBands = (u: uPlot) => {
       const { ctx, bbox } = u;
@@ -266,8 +283,15 @@ function PlotCanvas({
       scales: {
         x: {
           time: false,
-          ...(xMin !== undefined && xMax !== undefined && xMax > xMin
-            ? { range: (): uPlot.Range.MinMax => [xMin, xMax] }
+          ...(fixedRange
+            ? {
+                range: (_u, dataMin, dataMax): uPlot.Range.MinMax => {
+                  const { xMin: min, xMax: max } = dataRef.current;
+                  return min !== undefined && max !== undefined && max > min
+                    ? [min, max]
+                    : [dataMin, dataMax];
+                },
+              }
             : {}),
         },
         y: { auto: true },
@@ -318,8 +342,9 @@ function PlotCanvas({
             if (key !== 'x') return;
             const min = u.scales.x?.min ?? 0;
             const max = u.scales.x?.max ?? 0;
-            const first = xs[0] ?? 0;
-            const last = xs[xs.length - 1] ?? 0;
+            const { xs: shown } = current();
+            const first = shown[0] ?? 0;
+            const last = shown[shown.length - 1] ?? 0;
             setZoomed(min > first + 1e-9 || max < last - 1e-9);
           },
         ],
@@ -337,8 +362,8 @@ function PlotCanvas({
               readout.textContent = '\u00a0';
               return;
             }
-            const xValue = xs[index];
-            const yValue = ys[index];
+            const xValue = current().xs[index];
+            const yValue = current().ys[index];
             const xSpan = (u.scales.x?.max ?? 0) - (u.scales.x?.min ?? 0);
             const ySpan = (u.scales.y?.max ?? 0) - (u.scales.y?.min ?? 0);
             readout.textContent =
@@ -387,7 +412,7 @@ function PlotCanvas({
       plot.destroy();
       plotRef.current = null;
     };
-  }, [x, y, xLabel, yLabel, height, zoomable, xUnit, yUnit, xMin, xMax]);
+  }, [xLabel, yLabel, height, zoomable, xUnit, yUnit, fixedRange, pointSize]);
 
   function resetZoom() {
     const plot = plotRef.current;

@@ -69,7 +69,6 @@ export function DeckCard({
         </p>
       </header>
       <LightCurvePlot
-        key={card.snippetId}
         x={card.hours}
         y={card.ppm}
         line={line}
