@@ -37,21 +37,34 @@ function targetKind(target: EventTarget | null): KeyPress['target'] {
 export function DeckPage({ person }: { person: Person | null }) {
   const session = useDeckSession(person);
   const [showGuide, setShowGuide] = useState(() => !guideSeen());
-  const [markHours, setMarkHours] = useState<number | null>(null);
-  const [cursorHours, setCursorHours] = useState(0);
-  const hoverRef = useRef<number | null>(null);
+  // The mark and the time cursor belong to one card: a new card starts unmarked with the cursor in its
+  // middle from its first frame, so a quick second key press can never send the last card's mark.
+  const [markState, setMarkState] = useState<{ snippetId: number; hours: number | null } | null>(null);
+  const [cursorState, setCursorState] = useState<{ snippetId: number; hours: number } | null>(null);
+  const hoverRef = useRef<{ snippetId: number; hours: number | null } | null>(null);
   const [flyOut, setFlyOut] = useState<{ answer: Answer; id: number; dxPx: number; dyPx: number } | null>(
     null,
   );
   const wide = useWideScreen();
   const current = session.current;
-
-  // A new card starts unmarked, with the time cursor in its middle.
-  useEffect(() => {
-    setMarkHours(null);
-    setCursorHours(current ? current.durationHours / 2 : 0);
-    hoverRef.current = null;
-  }, [current]);
+  const currentId = current?.snippetId ?? null;
+  const markHours = markState && markState.snippetId === currentId ? markState.hours : null;
+  const cursorHours =
+    cursorState && cursorState.snippetId === currentId
+      ? cursorState.hours
+      : (current?.durationHours ?? 0) / 2;
+  const setMarkHours = useCallback(
+    (hours: number | null) => {
+      if (currentId !== null) setMarkState({ snippetId: currentId, hours });
+    },
+    [currentId],
+  );
+  const setCursorHours = useCallback(
+    (hours: number) => {
+      if (currentId !== null) setCursorState({ snippetId: currentId, hours });
+    },
+    [currentId],
+  );
 
   const give = useCallback(
     (answer: Answer, offset = { dxPx: 0, dyPx: 0 }) => {
@@ -62,40 +75,47 @@ export function DeckPage({ person }: { person: Person | null }) {
 
   const toggleMark = useCallback(() => {
     if (!current) return;
-    const at = hoverRef.current ?? cursorHours;
-    setMarkHours((mark) =>
-      mark !== null && Math.abs(mark - at) < 1e-6 ? null : Math.min(current.durationHours, Math.max(0, at)),
+    const hover = hoverRef.current;
+    const at =
+      hover && hover.snippetId === current.snippetId && hover.hours !== null ? hover.hours : cursorHours;
+    setMarkHours(
+      markHours !== null && Math.abs(markHours - at) < 1e-6
+        ? null
+        : Math.min(current.durationHours, Math.max(0, at)),
     );
-  }, [current, cursorHours]);
+  }, [current, cursorHours, markHours, setMarkHours]);
 
   const cardShown = Boolean(current) && !showGuide && !session.visitorLimitReached;
 
-  useEffect(() => {
-    if (showGuide) return;
-    const onKeyDown = (event: KeyboardEvent) => {
-      if (event.repeat) return;
-      const action = deckActionForKey({
-        key: event.key,
-        altKey: event.altKey,
-        ctrlKey: event.ctrlKey,
-        metaKey: event.metaKey,
-        shiftKey: event.shiftKey,
-        target: targetKind(event.target),
-      });
-      if (!action) return;
-      if (action.type === 'undo') {
-        event.preventDefault();
-        session.undo();
-        return;
-      }
-      if (!cardShown) return;
+  // The listener stays put and calls the handler of the latest render, so a key pressed just after
+  // a new card appeared acts on that card and its mark, never on the one before.
+  const onKeyDown = useRef<(event: KeyboardEvent) => void>(() => {});
+  onKeyDown.current = (event) => {
+    if (showGuide || event.repeat) return;
+    const action = deckActionForKey({
+      key: event.key,
+      altKey: event.altKey,
+      ctrlKey: event.ctrlKey,
+      metaKey: event.metaKey,
+      shiftKey: event.shiftKey,
+      target: targetKind(event.target),
+    });
+    if (!action) return;
+    if (action.type === 'undo') {
       event.preventDefault();
-      if (action.type === 'verdict') give(action.answer);
-      else toggleMark();
-    };
-    document.addEventListener('keydown', onKeyDown);
-    return () => document.removeEventListener('keydown', onKeyDown);
-  }, [showGuide, cardShown, give, toggleMark, session.undo]);
+      session.undo();
+      return;
+    }
+    if (!cardShown) return;
+    event.preventDefault();
+    if (action.type === 'verdict') give(action.answer);
+    else toggleMark();
+  };
+  useEffect(() => {
+    const listener = (event: KeyboardEvent) => onKeyDown.current(event);
+    document.addEventListener('keydown', listener);
+    return () => document.removeEventListener('keydown', listener);
+  }, []);
 
   return (
     <div className="flex flex-col gap-5 md:gap-6" data-cards-ahead={Math.max(0, session.cards.length - 1)}>
@@ -156,7 +176,7 @@ export function DeckPage({ person }: { person: Person | null }) {
                     onMark={setMarkHours}
                     onCursor={setCursorHours}
                     onHover={(hours) => {
-                      hoverRef.current = hours;
+                      hoverRef.current = { snippetId: current.snippetId, hours };
                     }}
                     plotHeight={wide ? 320 : 210}
                     showReadout={wide}
