@@ -165,6 +165,27 @@ export async function run(): Promise<Figure[]> {
         },
       ],
     } as unknown as autocannon.Options);
+    // The same connections asking who they are: a signed-in request that writes nothing, the ceiling
+    // of what any signed-in route can answer with this server's middleware on this machine.
+    let signedInAnswers = 0;
+    clientIndex = 0;
+    await autocannon({
+      url: base,
+      connections: CONNECTIONS,
+      duration: DURATION_S / 2,
+      setupClient: (client: { setHeaders: (headers: Record<string, string>) => void }) => {
+        client.setHeaders({ cookie: sessions[clientIndex++ % sessions.length]!.cookie });
+      },
+      requests: [
+        {
+          method: 'GET',
+          path: '/api/auth/me',
+          onResponse: (status: number) => {
+            if (status === 200) signedInAnswers += 1;
+          },
+        },
+      ],
+    } as unknown as autocannon.Options);
     server.kill('SIGTERM');
     await new Promise((resolve) => server.once('exit', resolve));
     const check = createDb(config);
@@ -176,6 +197,7 @@ export async function run(): Promise<Figure[]> {
       { name: 'deck.next_p99_ms', value: percentile(latencies, 99), unit: 'ms' },
       { name: 'deck.verdicts_per_s', value: acknowledged.size / DURATION_S, unit: 'verdicts/s' },
       { name: 'deck.verdict_errors', value: result.non2xx + result.errors, unit: '' },
+      { name: 'deck.signed_in_get_per_s', value: signedInAnswers / (DURATION_S / 2), unit: 'requests/s' },
       { name: 'deck.verdicts_lost', value: lost, unit: '' },
     ];
   } finally {
