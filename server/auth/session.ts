@@ -46,7 +46,7 @@ class SessionStore extends ConnectSessionKnexStore {
     }
     this.recent.delete(sid);
     try {
-      const data = (await super.get(sid)) as session.SessionData | null;
+      const data = (await super.get(sid, () => {})) as session.SessionData | null;
       if (data) this.remember(sid, data);
       callback?.(null, data);
       return data;

@@ -20,7 +20,8 @@ export function knexSettings(config: Pick<Config, 'databaseUrl' | 'sqliteFile'>)
     return { client: 'pg', connection: config.databaseUrl, pool: { min: 0, max: 10 }, migrations };
   }
   return {
-    client: CachedStatementsSqliteClient,
+    // Knex's types know only its base client; this one is its better-sqlite3 client, extended.
+    client: CachedStatementsSqliteClient as unknown as typeof Knex.Client,
     connection: { filename: config.sqliteFile },
     useNullAsDefault: true,
     // better-sqlite3 is synchronous: one connection per process, so statements queue instead of contending.
