@@ -188,7 +188,7 @@ export function DeckPage({ person }: { person: Person | null }) {
                     aria-hidden="true"
                     data-answer={flyOut.answer}
                     onAnimationEnd={() => setFlyOut(null)}
-                    className={`deck-fly absolute inset-0 flex items-center justify-center rounded-lg border-2 ${
+                    className={`deck-fly pointer-events-none absolute inset-0 flex items-center justify-center rounded-lg border-2 ${
                       flyOut.answer === 'dip'
                         ? 'border-amber bg-amber-wash text-amber-ink'
                         : flyOut.answer === 'flat'
