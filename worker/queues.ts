@@ -21,6 +21,16 @@ export const JOB_DATA = {
   ingest: {
     upload: z.object({ uploadId: z.number().int().positive() }),
   },
+  consensus: {
+    /** Rescore the campaign's snippets marked `needs_rescore` (coalesced per campaign). */
+    rescore: z.object({ campaignId: z.number().int().positive() }),
+    /** The full re-estimate of one campaign's reliabilities, then a rescore of its snippets. */
+    reestimate: z.object({ campaignId: z.number().int().positive() }),
+    /** Nightly: a re-estimate of every campaign with verdicts. */
+    'reestimate-all': z.object({}),
+    /** Every minute: rescore jobs for campaigns with marked snippets that no job took. */
+    sweep: z.object({}),
+  },
   housekeeping: {
     sweep: z.object({}),
   },

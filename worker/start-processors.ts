@@ -1,4 +1,5 @@
 import type Bull from 'bull';
+import { consensusProcessor } from './processors/consensus';
 import type { ProcessorContext } from './processors/context';
 import { housekeepingProcessor } from './processors/housekeeping';
 import { ingestProcessor } from './processors/ingest';
@@ -8,10 +9,18 @@ type Processor = (job: Bull.Job) => Promise<unknown>;
 
 /** Queues whose processors exist so far; the others hold their jobs until theirs arrive. */
 function processors(ctx: ProcessorContext): Partial<Record<QueueKey, Processor>> {
-  return { ingest: ingestProcessor(ctx), housekeeping: housekeepingProcessor(ctx) };
+  return {
+    ingest: ingestProcessor(ctx),
+    consensus: consensusProcessor(ctx),
+    housekeeping: housekeepingProcessor(ctx),
+  };
 }
 
 export const SWEEP_EVERY_MS = 10 * 60_000;
+/** How often snippets marked for rescoring but without a job get one. */
+export const CONSENSUS_SWEEP_EVERY_MS = 60_000;
+/** The nightly full re-estimate of every campaign's reliabilities (03:00 UTC, when volunteers are fewest in Europe). */
+export const REESTIMATE_CRON = '0 3 * * *';
 
 /**
  * Makes this process a worker: registers each queue's processor and the repeatable jobs. Runs in the
@@ -31,4 +40,14 @@ export async function startProcessors(queues: Queues, ctx: ProcessorContext): Pr
     void queue.process('*', QUEUES[key].concurrency, processor);
   }
   await queues.byKey.housekeeping.add('sweep', {}, { repeat: { every: SWEEP_EVERY_MS }, jobId: 'sweep' });
+  await queues.byKey.consensus.add(
+    'sweep',
+    {},
+    { repeat: { every: CONSENSUS_SWEEP_EVERY_MS }, jobId: 'consensus-sweep', removeOnComplete: true },
+  );
+  await queues.byKey.consensus.add(
+    'reestimate-all',
+    {},
+    { repeat: { cron: REESTIMATE_CRON, tz: 'UTC' }, jobId: 'reestimate-all', removeOnComplete: true },
+  );
 }

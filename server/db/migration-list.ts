@@ -1,12 +1,14 @@
 import type { Knex } from 'knex';
 import * as firstDataModel from '../../migrations/20261201000000_first_data_model';
 import * as deck from '../../migrations/20261201010000_deck';
+import * as consensus from '../../migrations/20261202000000_consensus';
 
 // Migrations are imported here rather than found on disk, so that they load the same way under tsx,
 // vitest and any bundler. A new migration file is added to this list, in order (see DEVELOPERS.md).
 const MIGRATIONS: [name: string, module: Knex.Migration][] = [
   ['20261201000000_first_data_model', firstDataModel],
   ['20261201010000_deck', deck],
+  ['20261202000000_consensus', consensus],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Knex.Migration]> = {

@@ -3,6 +3,7 @@ import type { Queues } from '../../worker/queues';
 import type { Config } from '../config';
 import type { Db } from '../db/knex';
 import type { Logger } from '../logger';
+import type { RescoreRequests } from '../services/consensus/request-rescore';
 
 export type ComponentStatus = { status: 'ok' | 'down' | 'not_configured'; detail?: string };
 
@@ -15,4 +16,6 @@ export interface AppDeps {
   sessionCookie: string;
   /** The background queues, to enqueue work and report on jobs; absent in a bare test app. */
   queues: Queues | undefined;
+  /** Asks for a rescore of a campaign's changed snippets (coalesced; a no-op without queues). */
+  rescoreRequests: RescoreRequests;
 }

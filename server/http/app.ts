@@ -8,6 +8,7 @@ import { resolveSessionSecret } from '../auth/session-secret';
 import type { Config } from '../config';
 import type { Db } from '../db/knex';
 import { createLogger, type Logger } from '../logger';
+import { createRescoreRequests } from '../services/consensus/request-rescore';
 import type { AppDeps } from './app-deps';
 import { mountRoutes } from './define-route';
 import { apiNotFound, errorHandler } from './error-handler';
@@ -33,6 +34,7 @@ export function createApp(options: AppOptions): { app: Express; deps: AppDeps } 
     passport: createPassport(db, config),
     sessionCookie: sessionCookieName(config),
     queues: options.queues,
+    rescoreRequests: createRescoreRequests(options.queues, logger),
   };
 
   const app = express();

@@ -82,7 +82,10 @@ export const deckRoutes = (deps: AppDeps) => [
     summary: 'Record a verdict (dip, flat or unsure, with an optional mark); idempotent by clientId',
     body: verdictBody,
     handle: async ({ req, res, body }) => {
-      const result = await recordVerdict(deps.db, judgeOf(req), body);
+      const judge = judgeOf(req);
+      const result = await recordVerdict(deps.db, judge, body);
+      // A guest's verdict counts only once claimed; the sweep rescores those snippets then.
+      if (result.created && judge.personId) deps.rescoreRequests.request(result.campaignId);
       res.status(result.created ? 201 : 200).json({ verdict: result.verdict, reveal: result.reveal });
     },
   }),
@@ -93,7 +96,9 @@ export const deckRoutes = (deps: AppDeps) => [
     summary: 'Take back a verdict within 15 seconds while its snippet is open',
     params: z.object({ clientId: z.string().regex(/^[A-Za-z0-9_-]{8,64}$/) }),
     handle: async ({ req, params }) => {
-      await undoVerdict(deps.db, judgeOf(req), params.clientId);
+      const judge = judgeOf(req);
+      const { campaignId } = await undoVerdict(deps.db, judge, params.clientId);
+      if (judge.personId) deps.rescoreRequests.request(campaignId);
     },
   }),
 ];

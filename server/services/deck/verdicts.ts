@@ -92,7 +92,13 @@ const judgeWhere = (judge: Judge) =>
  * never applied twice. One verdict per judge and snippet: a later one with a new id changes it while the
  * snippet is open. Only signed-in people's verdicts count (a guest's count once they sign up).
  */
-type RecordedVerdict = { created: boolean; verdict: VerdictView; reveal: Reveal };
+type RecordedVerdict = {
+  created: boolean;
+  verdict: VerdictView;
+  reveal: Reveal;
+  /** The snippet's campaign, for the rescore request (not part of the answer). */
+  campaignId: number;
+};
 
 // Verdicts arriving together share a transaction, which recordVerdictIn allows: it checks before it writes.
 const verdictCommits = new WeakMap<Db, GroupCommit<{ judge: Judge; input: VerdictInput }, RecordedVerdict>>();
@@ -109,6 +115,7 @@ export async function recordVerdict(db: Db, judge: Judge, input: VerdictInput): 
 // What judging a snippet needs to know of it; not its display series, which is most of its row.
 const SNIPPET_FOR_VERDICT = [
   'snippets.id',
+  'snippets.campaign_id',
   'snippets.kind',
   'snippets.state',
   'snippets.time_start',
@@ -144,6 +151,7 @@ async function recordVerdictIn(
     const snippet = await snippetForVerdict(trx, Number(existing.snippet_id));
     return {
       created: false,
+      campaignId: Number(snippet.campaign_id),
       verdict: toView(existing, input.clientId),
       reveal: await reveal(trx, snippet, judge, Number(snippet.feedback_rate)),
     };
@@ -223,14 +231,15 @@ async function recordVerdictIn(
   }
   return {
     created: true,
+    campaignId: Number(snippet.campaign_id),
     verdict: toView(row!, input.clientId),
     reveal: await reveal(trx, snippet, judge, Number(snippet.feedback_rate)),
   };
 }
 
-/** Takes back a verdict within 15 seconds, while its snippet is still open. */
-export async function undoVerdict(db: Db, judge: Judge, clientId: string): Promise<void> {
-  await writeTransaction(db, async (trx) => {
+/** Takes back a verdict within 15 seconds, while its snippet is still open; answers the snippet's campaign. */
+export async function undoVerdict(db: Db, judge: Judge, clientId: string): Promise<{ campaignId: number }> {
+  return writeTransaction(db, async (trx) => {
     const receipt = await trx('verdict_receipts').where({ client_id: clientId }).first('verdict_id');
     const verdict = receipt
       ? await trx('verdicts')
@@ -238,11 +247,12 @@ export async function undoVerdict(db: Db, judge: Judge, clientId: string): Promi
           .first()
       : undefined;
     if (!verdict || verdict.client_id !== clientId) throw notFound('Verdict');
-    if (verdict.withdrawn_at) return;
+    const snippet = await trx('snippets').where({ id: verdict.snippet_id }).first('state', 'campaign_id');
+    const campaignId = Number(snippet?.campaign_id);
+    if (verdict.withdrawn_at) return { campaignId };
     if (Date.now() - Date.parse(toIso(verdict.updated_at)) > UNDO_WINDOW_MS) {
       throw new AppError('undo_too_late', 'A verdict can only be taken back within 15 seconds', 'conflict');
     }
-    const snippet = await trx('snippets').where({ id: verdict.snippet_id }).first('state');
     if (snippet?.state !== 'open')
       throw new AppError('snippet_not_open', 'This snippet has settled meanwhile', 'conflict');
     await trx('verdicts').where({ id: verdict.id }).update({ withdrawn_at: nowIso(), updated_at: nowIso() });
@@ -250,6 +260,7 @@ export async function undoVerdict(db: Db, judge: Judge, clientId: string): Promi
       await trx('snippets').where({ id: verdict.snippet_id }).decrement('verdict_count', 1);
       await trx('snippets').where({ id: verdict.snippet_id }).update({ needs_rescore: true });
     }
+    return { campaignId };
   });
 }
 

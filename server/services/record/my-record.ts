@@ -53,14 +53,13 @@ export async function myRecord(db: Db, personId: number): Promise<MyRecord> {
   const plantedFound = control('planted', 'dip');
   const quietSeen = control('quiet');
   const quietCorrect = control('quiet', 'flat');
-  const [dips] = await live()
-    .where('verdicts.answer', 'dip')
-    .join('dips', 'dips.snippet_id', 'verdicts.snippet_id')
-    .countDistinct<{ n: number }[]>({ n: 'dips.id' });
-  const [candidates] = await live()
-    .where('verdicts.answer', 'dip')
-    .join('dips', 'dips.snippet_id', 'verdicts.snippet_id')
-    .join('candidate_dips', 'candidate_dips.dip_id', 'dips.id')
+  // Credited as the consensus job credits them: the dip voters of each dip (dip_finders).
+  const [dips] = await db('dip_finders')
+    .where({ person_id: personId })
+    .countDistinct<{ n: number }[]>({ n: 'dip_id' });
+  const [candidates] = await db('dip_finders')
+    .where('dip_finders.person_id', personId)
+    .join('candidate_dips', 'candidate_dips.dip_id', 'dip_finders.dip_id')
     .countDistinct<{ n: number }[]>({ n: 'candidate_dips.candidate_id' });
   const recent: Record<string, unknown>[] = await live()
     .join('snippets', 'snippets.id', 'verdicts.snippet_id')

@@ -12,7 +12,7 @@ afterAll(async () => {
   fs.rmSync(dir, { recursive: true, force: true });
 });
 
-const MIGRATION_COUNT = 2;
+const MIGRATION_COUNT = 3;
 
 const EXPECTED_TABLES = [
   'api_tokens',
@@ -21,6 +21,7 @@ const EXPECTED_TABLES = [
   'candidate_dips',
   'candidates',
   'deliveries',
+  'dip_finders',
   'dips',
   'light_curves',
   'newsletters',
