@@ -55,6 +55,7 @@ export const apiPaths = {
   campaignLightCurves: (id: number) => `${env.VITE_API_BASE}/campaigns/${id}/light-curves`,
   campaignUploads: (id: number) => `${env.VITE_API_BASE}/campaigns/${id}/uploads`,
   campaignSnippets: (id: number) => `${env.VITE_API_BASE}/campaigns/${id}/snippets`,
+  campaignCompleteness: (id: number) => `${env.VITE_API_BASE}/campaigns/${id}/completeness`,
   upload: (id: number) => `${env.VITE_API_BASE}/uploads/${id}`,
   snippet: (id: number) => `${env.VITE_API_BASE}/snippets/${id}`,
   target: (id: number) => `${env.VITE_API_BASE}/targets/${id}`,

@@ -63,6 +63,8 @@ export const queryKeys = {
     all: () => ['campaigns'] as const,
     list: () => ['campaigns', {}] as const,
     detail: (id: number) => ['campaigns', { id }] as const,
+    // Under the campaign, so that what refreshes a campaign (new controls from an upload) refreshes it too.
+    completeness: (id: number) => ['campaigns', { id, part: 'completeness' }] as const,
   },
   targets: {
     all: () => ['targets'] as const,

@@ -5,6 +5,7 @@ import {
   getCampaign,
   listCampaigns,
 } from '../../services/campaigns/manage-campaigns';
+import { campaignCompleteness } from '../../services/completeness/campaign-completeness';
 import type { AppDeps } from '../app-deps';
 import { defineRoute } from '../define-route';
 import { idParams } from '../schemas';
@@ -33,6 +34,15 @@ export const campaignRoutes = (deps: AppDeps) => [
     summary: 'One campaign with its settings and counts',
     params: idParams,
     handle: async ({ params }) => ({ campaign: await getCampaign(deps.db, params.id) }),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/campaigns/:id/completeness',
+    access: 'scientist',
+    summary:
+      'Recovery of planted dips per bin of planted SNR (expectedSnr), depth (ppm) and duration (hours), and the false-dip rate on quiet controls, each with its Wilson 95% interval. Controls still open or split count as pending, in no rate',
+    params: idParams,
+    handle: async ({ params }) => ({ completeness: await campaignCompleteness(deps.db, params.id) }),
   }),
   defineRoute({
     method: 'patch',

@@ -11,6 +11,7 @@ import { isApiError } from '@/lib/api-client';
 import { useCampaign } from '../api/get-campaign';
 import { type Campaign, snippetTotal } from '../lib/campaigns';
 import { formatCount, formatDateTime } from '../lib/format';
+import { CampaignCompleteness } from './campaign-completeness';
 import { CampaignSettingsForm } from './campaign-settings-form';
 import { CampaignStatusActions, type Outcome } from './campaign-status-actions';
 import { CampaignStatusBadge } from './campaign-status-badge';
@@ -76,6 +77,16 @@ function CampaignView({ campaign }: { campaign: Campaign }) {
       </div>
 
       <CampaignCounts campaign={campaign} />
+
+      <Section
+        id="completeness"
+        title="Completeness"
+        description="How many planted dips volunteers recover, by SNR, depth and duration, and how often they call a quiet control a dip. A control counts once its snippet is settled or ruled."
+      >
+        <LocalBoundary what="The completeness figures">
+          <CampaignCompleteness campaignId={campaign.id} />
+        </LocalBoundary>
+      </Section>
 
       <div className="grid grid-cols-1 gap-10 lg:grid-cols-2 lg:gap-8">
         <Section
