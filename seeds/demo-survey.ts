@@ -20,7 +20,7 @@ const QUIET_REFERENCE_EVERY = 6;
 export async function seedDemoSurvey(
   db: Db,
   options: DemoSurveyOptions,
-): Promise<{ targets: number; snippets: number }> {
+): Promise<{ targets: number; snippets: number; survey: ReturnType<typeof generateSurvey> }> {
   const campaign = await findCampaignById(db, options.campaignId);
   if (!campaign) throw new Error(`campaign ${options.campaignId} does not exist`);
   const seed = options.seed ?? 'larkspur-field-a';
@@ -57,5 +57,5 @@ export async function seedDemoSurvey(
     });
     snippets += result.snippetCount;
   }
-  return { targets: survey.targets.length, snippets };
+  return { targets: survey.targets.length, snippets, survey };
 }

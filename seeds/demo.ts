@@ -2,10 +2,13 @@ import { hashPassword } from '../server/auth/password';
 import type { Role } from '../server/auth/roles';
 import type { Db } from '../server/db/knex';
 import { insertPerson, type PersonRow } from '../server/db/people';
+import { reestimateCampaign } from '../server/services/consensus/reestimate-campaign';
+import { seedDemoCrowd } from './demo-crowd';
 import { seedDemoSurvey } from './demo-survey';
 import { createCampaign, createSurveyTeam } from './factories/campaigns';
 
-// The demo scenario: an invented survey team, one live campaign and an account for every role.
+// The demo scenario: an invented survey team, one live campaign, an account for every role, and an
+// invented crowd whose verdicts have already been through the consensus.
 // Everything here is made up for the demo; none of it describes a real survey or star.
 
 export const DEMO_PASSWORD = 'dipdeck-demo';
@@ -46,5 +49,8 @@ export async function seedDemo(db: Db, options: { targets: number } = { targets:
     surveyTeamId: teamId,
     createdBy: scientist?.id ?? null,
   });
-  await seedDemoSurvey(db, { campaignId, targetCount: options.targets });
+  const { survey } = await seedDemoSurvey(db, { campaignId, targetCount: options.targets });
+  await seedDemoCrowd(db, { campaignId, targets: survey.targets, passwordHash: hashes[0]! });
+  // What the consensus jobs would have made of the crowd's verdicts by now.
+  await reestimateCampaign(db, campaignId);
 }

@@ -3,6 +3,7 @@ import * as auth from './auth.bench';
 import * as bls from './bls.bench';
 import * as client from './client.bench';
 import * as consensus from './consensus.bench';
+import * as consensusJob from './consensus-job.bench';
 import * as deck from './deck.bench';
 import * as deckInp from './deck-inp.bench';
 import { type Figure, formatFigure } from './figures';
@@ -17,6 +18,7 @@ const BENCHMARKS: [name: string, run: () => Promise<Figure[]>][] = [
   ['pipeline', pipeline.run],
   ['bls', bls.run],
   ['consensus', consensus.run],
+  ['consensus-job', consensusJob.run],
   ['deck', deck.run],
   ['client', client.run],
   ['deck-inp', deckInp.run],
