@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import * as firstDataModel from '../../migrations/20261201000000_first_data_model';
 import * as deck from '../../migrations/20261201010000_deck';
 import * as consensus from '../../migrations/20261202000000_consensus';
+import * as desk from '../../migrations/20261202010000_desk';
 
 // Migrations are imported here rather than found on disk, so that they load the same way under tsx,
 // vitest and any bundler. A new migration file is added to this list, in order (see DEVELOPERS.md).
@@ -9,6 +10,7 @@ const MIGRATIONS: [name: string, module: Knex.Migration][] = [
   ['20261201000000_first_data_model', firstDataModel],
   ['20261201010000_deck', deck],
   ['20261202000000_consensus', consensus],
+  ['20261202010000_desk', desk],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Knex.Migration]> = {

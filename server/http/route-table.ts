@@ -1,9 +1,11 @@
 import type { AppDeps } from './app-deps';
 import type { AnyRouteDef } from './define-route';
 import { adminPeopleRoutes } from './routes/admin-people';
+import { auditRoutes } from './routes/audit';
 import { authRoutes } from './routes/auth';
 import { campaignRoutes } from './routes/campaigns';
 import { deckRoutes } from './routes/deck';
+import { deskRoutes } from './routes/desk';
 import { healthRoutes } from './routes/health';
 import { jobRoutes } from './routes/jobs';
 import { labRoutes } from './routes/lab';
@@ -21,6 +23,8 @@ export function routeTable(deps: AppDeps): AnyRouteDef[] {
     ...campaignRoutes(deps),
     ...labRoutes(deps),
     ...deckRoutes(deps),
+    ...deskRoutes(deps),
+    ...auditRoutes(deps),
   ];
   return [...routes, ...openApiRoutes(deps, () => routes)];
 }

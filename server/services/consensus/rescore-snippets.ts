@@ -171,7 +171,8 @@ async function rescoreOne(
   await saveSnippetScore(trx, snippet.id, update);
   let dips = 0;
   // Dips are found on real snippets only: a planted dip is ours, and a quiet one has none to find.
-  if (update.state === 'settled' && update.outcome === 'dip' && snippet.kind === 'real') {
+  const positive = (update.state === 'settled' || update.state === 'ruled') && update.outcome === 'dip';
+  if (positive && snippet.kind === 'real') {
     dips = (await saveDips(trx, settings, snippet, verdicts, score.score)).length;
   }
   return { update, settledNow: update.settledNow, dips };
@@ -197,7 +198,16 @@ export function nextState(
   };
   switch (snippet.state) {
     case 'ruled':
+      return keep;
     case 'split':
+      // Sent to the Desk because a rescore would have flipped it, and now back where it was (a
+      // suspension lifted, say): it settles again as it was. Other splits wait for a moderator.
+      if (
+        snippet.splitReason === 'outcome_changed' &&
+        decision.state === 'settled' &&
+        decision.outcome === snippet.outcome
+      )
+        return { ...keep, state: 'settled', splitReason: null };
       return keep;
     case 'settled':
       if (decision.state === 'settled' && decision.outcome === snippet.outcome) return keep;

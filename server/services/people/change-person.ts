@@ -1,5 +1,6 @@
 import type { Role } from '../../auth/roles';
 import { appendAudit } from '../../db/audit-log';
+import { markPersonSnippetsForRescore } from '../../db/desk';
 import type { Db } from '../../db/knex';
 import { findPersonById, type PersonRow, updatePerson } from '../../db/people';
 import { nowIso } from '../../db/rows';
@@ -56,6 +57,9 @@ export async function changePerson(
         after: { suspended: change.suspended },
         note: change.reason ?? null,
       });
+      // A suspended volunteer's verdicts stop counting (and count again on restoring): the consensus
+      // sweep rescores what they touched.
+      await markPersonSnippetsForRescore(trx, personId);
     }
     return after;
   });

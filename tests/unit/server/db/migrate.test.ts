@@ -12,7 +12,7 @@ afterAll(async () => {
   fs.rmSync(dir, { recursive: true, force: true });
 });
 
-const MIGRATION_COUNT = 3;
+const MIGRATION_COUNT = 4;
 
 const EXPECTED_TABLES = [
   'api_tokens',
@@ -23,6 +23,7 @@ const EXPECTED_TABLES = [
   'deliveries',
   'dip_finders',
   'dips',
+  'flag_clearances',
   'light_curves',
   'newsletters',
   'people',
