@@ -13,6 +13,7 @@ import { paths } from '@/config/paths';
 // the staff areas (Desk, Lab, Admin) and My record load on first visit, each in a chunk of its own.
 const lab = () => import('@/app/routes/lab');
 const admin = () => import('@/app/routes/admin');
+const desk = () => import('@/app/routes/desk');
 
 export const router = createBrowserRouter([
   {
@@ -31,7 +32,22 @@ export const router = createBrowserRouter([
       },
       {
         path: paths.desk.path,
-        lazy: () => import('@/app/routes/desk').then((module) => ({ Component: module.DeskRoute })),
+        lazy: () => desk().then((module) => ({ Component: module.DeskRoute })),
+        children: [
+          { index: true, lazy: () => desk().then((module) => ({ Component: module.DeskSplitsRoute })) },
+          {
+            path: paths.deskSplit.path,
+            lazy: () => desk().then((module) => ({ Component: module.DeskSplitRoute })),
+          },
+          {
+            path: paths.deskVolunteers.path,
+            lazy: () => desk().then((module) => ({ Component: module.DeskVolunteersRoute })),
+          },
+          {
+            path: paths.deskAudit.path,
+            lazy: () => desk().then((module) => ({ Component: module.DeskAuditRoute })),
+          },
+        ],
       },
       {
         path: paths.lab.path,

@@ -33,6 +33,14 @@ export interface PlotLine {
   y: readonly number[];
 }
 
+/** What the chart shows of the x axis and where its plotting area sits inside the figure, in CSS px. */
+export interface PlotView {
+  xMin: number;
+  xMax: number;
+  leftPx: number;
+  widthPx: number;
+}
+
 export interface LightCurvePlotProps {
   /** Sorted ascending. */
   x: readonly number[];
@@ -46,6 +54,9 @@ export interface LightCurvePlotProps {
   /** The x axis's extent, when it should be fixed rather than follow the data (a snippet's whole window); not for zoomable plots. */
   xMin?: number;
   xMax?: number;
+  /** The y axis's extent, when it should be fixed (a probability from 0 to 1) rather than follow the data. */
+  yMin?: number;
+  yMax?: number;
   /** A line drawn over the points, such as binned means. */
   line?: PlotLine | null;
   height?: number;
@@ -53,6 +64,8 @@ export interface LightCurvePlotProps {
   onTap?: (x: number) => void;
   /** The x value under the pointer while it is over the chart, null when it leaves. */
   onHover?: (x: number | null) => void;
+  /** The visible x range and the plotting area's place, whenever either changes: for a strip lined up under the chart. */
+  onView?: (view: PlotView) => void;
   /** Replaces the read-out under the chart (the Deck keeps its own controls there). */
   hideReadout?: boolean;
   /** Drag across to zoom into a time range; double-click or the reset button to see it all again. */
@@ -112,12 +125,15 @@ function PlotCanvas({
   line = null,
   xMin,
   xMax,
+  yMin,
+  yMax,
   height = 280,
   zoomable = false,
   xUnit = '',
   yUnit = '',
   onTap,
   onHover,
+  onView,
   hideReadout = false,
 }: LightCurvePlotProps) {
   const containerRef = useRef<HTMLDivElement>(null);
@@ -126,8 +142,8 @@ function PlotCanvas({
   // Bands and markers are read by the draw hooks, so a new selection redraws without a new chart.
   const overlayRef = useRef({ bands, markers, line });
   // Callbacks change identity on every render of the parent; the chart reads the latest through a ref.
-  const handlersRef = useRef({ onTap, onHover });
-  handlersRef.current = { onTap, onHover };
+  const handlersRef = useRef({ onTap, onHover, onView });
+  handlersRef.current = { onTap, onHover, onView };
   const [zoomed, setZoomed] = useState(false);
   const hintId = useId();
 
@@ -137,8 +153,9 @@ function PlotCanvas({
     () => ({ xs: Float64Array.from(x), ys: y.map((value) => (value === null ? null : value)) }),
     [x, y],
   );
-  const dataRef = useRef({ data, xMin, xMax });
+  const dataRef = useRef({ data, xMin, xMax, yMin, yMax });
   const fixedRange = xMin !== undefined && xMax !== undefined;
+  const fixedYRange = yMin !== undefined && yMax !== undefined;
   const pointSize = x.length > 4000 ? 2 : x.length > 800 ? 3 : 4;
 
   // Declared before the chart's own effect, so a new chart draws with the overlays of this render.
@@ -148,12 +165,12 @@ function PlotCanvas({
   }, [bands, markers, line]);
 
   useEffect(() => {
-    dataRef.current = { data, xMin, xMax };
+    dataRef.current = { data, xMin, xMax, yMin, yMax };
     const plot = plotRef.current;
     if (!plot || plot.data[0] === data.xs) return;
     plot.setData([data.xs, data.ys] as uPlot.AlignedData);
     setZoomed(false);
-  }, [data, xMin, xMax]);
+  }, [data, xMin, xMax, yMin, yMax]);
 
   useEffect(() => {
     const container = containerRef.current;
@@ -275,6 +292,19 @@ function PlotCanvas({
       ctx.restore();
     };
 
+    const reportView = (u: uPlot) => {
+      const report = handlersRef.current.onView;
+      const min = u.scales.x?.min;
+      const max = u.scales.x?.max;
+      if (!report || min === undefined || max === undefined) return;
+      report({
+        xMin: min,
+        xMax: max,
+        leftPx: u.bbox.left / devicePixelRatio,
+        widthPx: u.bbox.width / devicePixelRatio,
+      });
+    };
+
     const options: uPlot.Options = {
       width,
       height,
@@ -294,7 +324,14 @@ function PlotCanvas({
               }
             : {}),
         },
-        y: { auto: true },
+        y: fixedYRange
+          ? {
+              range: (_u, dataMin, dataMax): uPlot.Range.MinMax => {
+                const { yMin: min, yMax: max } = dataRef.current;
+                return min !== undefined && max !== undefined && max > min ? [min, max] : [dataMin, dataMax];
+              },
+            }
+          : { auto: true },
       },
       cursor: {
         drag: { x: zoomable, y: false, setScale: zoomable },
@@ -335,6 +372,8 @@ function PlotCanvas({
         },
       ],
       hooks: {
+        ready: [reportView],
+        setSize: [reportView],
         drawClear: [drawBands],
         draw: [drawLine, drawMarkers],
         setScale: [
@@ -346,6 +385,7 @@ function PlotCanvas({
             const first = shown[0] ?? 0;
             const last = shown[shown.length - 1] ?? 0;
             setZoomed(min > first + 1e-9 || max < last - 1e-9);
+            reportView(u);
           },
         ],
         setCursor: [
@@ -412,7 +452,7 @@ function PlotCanvas({
       plot.destroy();
       plotRef.current = null;
     };
-  }, [xLabel, yLabel, height, zoomable, xUnit, yUnit, fixedRange, pointSize]);
+  }, [xLabel, yLabel, height, zoomable, xUnit, yUnit, fixedRange, fixedYRange, pointSize]);
 
   function resetZoom() {
     const plot = plotRef.current;

@@ -10,13 +10,41 @@ function withRedirect(path: string, redirectTo?: string): string {
   return redirectTo ? `${path}?redirectTo=${encodeURIComponent(redirectTo)}` : path;
 }
 
+/** The split queue as the address carries it: a campaign (or every one), an order and a page. */
+export interface DeskQueueHref {
+  campaign?: number | null;
+  order?: 'oldest' | 'needed';
+  page?: number;
+}
+
+function deskQueueSearch({ campaign, order, page }: DeskQueueHref): string {
+  const search = new URLSearchParams();
+  if (campaign) search.set('campaign', String(campaign));
+  if (order && order !== 'oldest') search.set('order', order);
+  if (page && page > 1) search.set('page', String(page));
+  const text = search.toString();
+  return text ? `?${text}` : '';
+}
+
 export const paths = {
   home: { path: '/', getHref: () => '/' },
   signIn: { path: '/sign-in', getHref: (redirectTo?: string) => withRedirect('/sign-in', redirectTo) },
   signUp: { path: '/sign-up', getHref: (redirectTo?: string) => withRedirect('/sign-up', redirectTo) },
   deck: { path: '/deck', getHref: () => '/deck' },
   record: { path: '/record', getHref: () => '/record' },
-  desk: { path: '/desk', getHref: () => '/desk' },
+  /** The Desk's home is its split queue; `campaign` and `order` filter and order it. */
+  desk: {
+    path: '/desk',
+    getHref: (queue: DeskQueueHref = {}) => `/desk${deskQueueSearch(queue)}`,
+  },
+  /** One split snippet's review; the queue it was opened from comes along, so J and K follow it. */
+  deskSplit: {
+    path: '/desk/splits/:snippetId',
+    getHref: (snippetId: number, queue: DeskQueueHref = {}) =>
+      `/desk/splits/${snippetId}${deskQueueSearch(queue)}`,
+  },
+  deskVolunteers: { path: '/desk/volunteers', getHref: () => '/desk/volunteers' },
+  deskAudit: { path: '/desk/audit', getHref: () => '/desk/audit' },
   lab: { path: '/lab', getHref: () => '/lab' },
   labNewCampaign: { path: '/lab/campaigns/new', getHref: () => '/lab/campaigns/new' },
   labCampaign: {
@@ -67,4 +95,14 @@ export const apiPaths = {
   // Client ids are [A-Za-z0-9_-], but encoding keeps the path one segment whatever a stored entry holds.
   verdict: (clientId: string) => `${env.VITE_API_BASE}/verdicts/${encodeURIComponent(clientId)}`,
   record: () => `${env.VITE_API_BASE}/record`,
+  deskSplits: () => `${env.VITE_API_BASE}/desk/splits`,
+  deskSplit: (snippetId: number) => `${env.VITE_API_BASE}/desk/splits/${snippetId}`,
+  snippetRuling: (snippetId: number) => `${env.VITE_API_BASE}/snippets/${snippetId}/ruling`,
+  deskVolunteers: () => `${env.VITE_API_BASE}/desk/volunteers`,
+  deskVolunteerSuspend: (id: number) => `${env.VITE_API_BASE}/desk/volunteers/${id}/suspend`,
+  deskVolunteerRestore: (id: number) => `${env.VITE_API_BASE}/desk/volunteers/${id}/restore`,
+  deskVolunteerClearFlag: (id: number, code: string) =>
+    `${env.VITE_API_BASE}/desk/volunteers/${id}/flags/${encodeURIComponent(code)}/clear`,
+  deskVolunteerWarning: (id: number) => `${env.VITE_API_BASE}/desk/volunteers/${id}/warning`,
+  audit: () => `${env.VITE_API_BASE}/audit`,
 } as const;

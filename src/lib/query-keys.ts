@@ -44,6 +44,36 @@ export interface DeckNextParams {
   exclude: readonly number[];
 }
 
+export interface SplitListParams {
+  /** A campaign id, or null for every campaign. */
+  campaign: number | null;
+  order: 'oldest' | 'needed';
+  limit: number;
+  offset: number;
+}
+
+export interface DeskVolunteerListParams {
+  campaign: number | null;
+  search: string;
+  flagged: boolean;
+  sort: 'name' | 'verdicts' | 'controlAccuracy' | 'agreement' | 'medianMs' | 'topShare' | 'lastActive';
+  order: 'asc' | 'desc';
+  limit: number;
+  offset: number;
+}
+
+export interface AuditListParams {
+  /** '' for any action or entity type; actorId null for anyone. */
+  action: string;
+  entityType: string;
+  actorId: number | null;
+  /** ISO instants, or '' for no bound. */
+  from: string;
+  to: string;
+  limit: number;
+  offset: number;
+}
+
 export const queryKeys = {
   me: () => ['me', {}] as const,
   people: {
@@ -93,5 +123,19 @@ export const queryKeys = {
   record: {
     all: () => ['record'] as const,
     mine: () => ['record', {}] as const,
+  },
+  // The queue and each review share the resource, so a ruling refreshes both.
+  splits: {
+    all: () => ['splits'] as const,
+    list: (params: SplitListParams) => ['splits', params] as const,
+    review: (snippetId: number) => ['splits', { snippetId }] as const,
+  },
+  deskVolunteers: {
+    all: () => ['desk-volunteers'] as const,
+    list: (params: DeskVolunteerListParams) => ['desk-volunteers', params] as const,
+  },
+  audit: {
+    all: () => ['audit'] as const,
+    list: (params: AuditListParams) => ['audit', params] as const,
   },
 } as const;

@@ -96,7 +96,7 @@ describe('signing up, in and out', () => {
     await journey.page.getByLabel('E-mail').fill('moderator@demo.dipdeck.test');
     await journey.page.getByLabel('Password').fill(DEMO_PASSWORD);
     await journey.page.getByRole('button', { name: 'Sign in' }).click();
-    await journey.page.getByRole('heading', { name: 'Settle split snippets' }).waitFor();
+    await journey.page.getByRole('heading', { level: 1, name: 'Split snippets' }).waitFor();
     expect(new URL(journey.page.url()).pathname).toBe('/desk');
   });
 

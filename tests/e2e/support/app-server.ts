@@ -9,6 +9,8 @@ const startTimeoutMs = 60_000;
 
 export interface AppServer {
   baseUrl: string;
+  /** The server's own DATA_DIR (its SQLite file is dipdeck.sqlite there), for a journey that sets up data. */
+  dataDir: string;
   stop: () => Promise<void>;
 }
 
@@ -92,5 +94,5 @@ export async function startAppServer(): Promise<AppServer> {
     await stop();
     throw error;
   }
-  return { baseUrl, stop };
+  return { baseUrl, dataDir, stop };
 }
