@@ -31,6 +31,10 @@ export const JOB_DATA = {
     /** Every minute: rescore jobs for campaigns with marked snippets that no job took. */
     sweep: z.object({}),
   },
+  periodSearch: {
+    /** BLS over a target's light curves for the period_searches row. */
+    search: z.object({ periodSearchId: z.number().int().positive() }),
+  },
   housekeeping: {
     sweep: z.object({}),
   },

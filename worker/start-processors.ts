@@ -3,6 +3,7 @@ import { consensusProcessor } from './processors/consensus';
 import type { ProcessorContext } from './processors/context';
 import { housekeepingProcessor } from './processors/housekeeping';
 import { ingestProcessor } from './processors/ingest';
+import { periodSearchProcessor } from './processors/period-search';
 import { QUEUES, type QueueKey, type Queues } from './queues';
 
 type Processor = (job: Bull.Job) => Promise<unknown>;
@@ -12,6 +13,7 @@ function processors(ctx: ProcessorContext): Partial<Record<QueueKey, Processor>>
   return {
     ingest: ingestProcessor(ctx),
     consensus: consensusProcessor(ctx),
+    periodSearch: periodSearchProcessor(ctx),
     housekeeping: housekeepingProcessor(ctx),
   };
 }

@@ -3,6 +3,7 @@ import * as firstDataModel from '../../migrations/20261201000000_first_data_mode
 import * as deck from '../../migrations/20261201010000_deck';
 import * as consensus from '../../migrations/20261202000000_consensus';
 import * as desk from '../../migrations/20261202010000_desk';
+import * as periodSearches from '../../migrations/20261202020000_period_searches';
 
 // Migrations are imported here rather than found on disk, so that they load the same way under tsx,
 // vitest and any bundler. A new migration file is added to this list, in order (see DEVELOPERS.md).
@@ -11,6 +12,7 @@ const MIGRATIONS: [name: string, module: Knex.Migration][] = [
   ['20261201010000_deck', deck],
   ['20261202000000_consensus', consensus],
   ['20261202010000_desk', desk],
+  ['20261202020000_period_searches', periodSearches],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Knex.Migration]> = {

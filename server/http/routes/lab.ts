@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { latestPeriodSearchOf, requestPeriodSearch } from '../../services/period-search/period-search';
 import { getSnippet, listSnippets, markSnippetQuiet } from '../../services/snippets/read-snippets';
 import { importCatalogue } from '../../services/targets/import-catalogue';
 import { getTarget, listTargets } from '../../services/targets/read-targets';
@@ -135,4 +136,33 @@ export const labRoutes = (deps: AppDeps) => [
     params: idParams,
     handle: async ({ params }) => getTarget(deps.db, params.id),
   }),
+  defineRoute({
+    method: 'post',
+    path: '/targets/:id/period-search',
+    access: 'scientist',
+    summary: 'Start a period search (BLS) of the target’s light curves as a worker job; 202 with the job',
+    params: idParams,
+    body: periodSearchBody,
+    status: 202,
+    handle: ({ params, body, person }) =>
+      requestPeriodSearch(deps.db, deps.queues, person!, params.id, body ?? {}),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/targets/:id/period-search',
+    access: 'scientist',
+    summary:
+      'The latest period search of a target: its state, or its result (period, t0, depth, duration, SNR, diagnostics)',
+    params: idParams,
+    handle: ({ params }) => latestPeriodSearchOf(deps.db, params.id),
+  }),
 ];
+
+const periodSearchBody = z
+  .object({
+    minPeriodDays: z.number().min(0.1).max(1_000).optional(),
+    maxPeriodDays: z.number().min(0.2).max(10_000).optional(),
+    oversample: z.number().min(0.25).max(10).optional(),
+  })
+  .strict()
+  .optional();

@@ -12,7 +12,7 @@ afterAll(async () => {
   fs.rmSync(dir, { recursive: true, force: true });
 });
 
-const MIGRATION_COUNT = 4;
+const MIGRATION_COUNT = 5;
 
 const EXPECTED_TABLES = [
   'api_tokens',
@@ -27,6 +27,7 @@ const EXPECTED_TABLES = [
   'light_curves',
   'newsletters',
   'people',
+  'period_searches',
   'reliability',
   'rulings',
   'sessions',
