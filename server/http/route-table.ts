@@ -4,6 +4,7 @@ import { adminPeopleRoutes } from './routes/admin-people';
 import { auditRoutes } from './routes/audit';
 import { authRoutes } from './routes/auth';
 import { campaignRoutes } from './routes/campaigns';
+import { candidateRoutes } from './routes/candidates';
 import { deckRoutes } from './routes/deck';
 import { deskRoutes } from './routes/desk';
 import { healthRoutes } from './routes/health';
@@ -21,6 +22,7 @@ export function routeTable(deps: AppDeps): AnyRouteDef[] {
     ...jobRoutes(deps),
     ...tokenRoutes(deps),
     ...campaignRoutes(deps),
+    ...candidateRoutes(deps),
     ...labRoutes(deps),
     ...deckRoutes(deps),
     ...deskRoutes(deps),

@@ -1,0 +1,59 @@
+import { z } from 'zod';
+import { CANDIDATE_STATES, DISPOSITIONS } from '../../db/candidates';
+import {
+  campaignCandidates,
+  changeCandidate,
+  promoteCandidate,
+} from '../../services/candidates/manage-candidates';
+import type { AppDeps } from '../app-deps';
+import { defineRoute } from '../define-route';
+import { idParams } from '../schemas';
+
+const promoteBody = z
+  .object({
+    targetId: z.number().int().positive(),
+    dipIds: z.array(z.number().int().positive()).max(500).optional(),
+    notes: z.string().max(5_000).nullable().optional(),
+    telescopePrecisionPpm: z.number().positive().max(1_000_000).optional(),
+  })
+  .strict();
+
+const changeBody = z
+  .object({
+    state: z.enum(CANDIDATE_STATES, `One of ${CANDIDATE_STATES.join(', ')}`).optional(),
+    disposition: z.enum(DISPOSITIONS, `One of ${DISPOSITIONS.join(', ')}`).optional(),
+    notes: z.string().max(5_000).nullable().optional(),
+  })
+  .strict()
+  .refine((body) => Object.keys(body).length > 0, { message: 'Change at least one field', path: ['state'] });
+
+export const candidateRoutes = (deps: AppDeps) => [
+  defineRoute({
+    method: 'post',
+    path: '/campaigns/:id/candidates',
+    access: 'scientist',
+    summary:
+      'Promote a target (with chosen dips) to the follow-up list; candidates are not confirmed planets',
+    params: idParams,
+    body: promoteBody,
+    status: 201,
+    handle: ({ params, body, person }) => promoteCandidate(deps.db, person!, params.id, body),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/campaigns/:id/candidates',
+    access: 'scientist',
+    summary: 'The campaign’s follow-up list, highest priority first, with the volunteers credited',
+    params: idParams,
+    handle: ({ params }) => campaignCandidates(deps.db, params.id),
+  }),
+  defineRoute({
+    method: 'patch',
+    path: '/candidates/:id',
+    access: 'scientist',
+    summary: 'Move a candidate through promoted → scheduled → observed → resolved, or set its disposition',
+    params: idParams,
+    body: changeBody,
+    handle: ({ params, body, person }) => changeCandidate(deps.db, person!, params.id, body),
+  }),
+];
