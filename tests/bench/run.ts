@@ -6,6 +6,7 @@ import * as consensus from './consensus.bench';
 import * as consensusJob from './consensus-job.bench';
 import * as deck from './deck.bench';
 import * as deckInp from './deck-inp.bench';
+import * as exports from './exports.bench';
 import { type Figure, formatFigure } from './figures';
 import * as pipeline from './pipeline.bench';
 import * as queue from './queue.bench';
@@ -22,6 +23,7 @@ const BENCHMARKS: [name: string, run: () => Promise<Figure[]>][] = [
   ['deck', deck.run],
   ['client', client.run],
   ['deck-inp', deckInp.run],
+  ['exports', exports.run],
 ];
 
 const filter = process.argv[2];

@@ -20,15 +20,27 @@ async function currentSnippet(): Promise<string> {
   return (await card().getAttribute('data-snippet-id')) ?? '';
 }
 
+// Hang guards, not speed limits: a loaded CI machine can take seconds to draw a card.
 async function nextCardAfter(previous: string) {
-  await journey.page.waitForFunction(
-    (before) => {
-      const id = document.querySelector('article[data-snippet-id]')?.getAttribute('data-snippet-id');
-      return id && id !== before;
-    },
-    previous,
-    { timeout: 10_000 },
-  );
+  try {
+    await journey.page.waitForFunction(
+      (before) => {
+        const id = document.querySelector('article[data-snippet-id]')?.getAttribute('data-snippet-id');
+        return id && id !== before;
+      },
+      previous,
+      { timeout: 30_000 },
+    );
+  } catch (error) {
+    // What the page showed instead, for whoever reads the failure.
+    await journey.page.screenshot({ path: 'test-results/deck-next-card-failure.png', fullPage: true });
+    const state = await journey.page.evaluate(() => ({
+      snippet: document.querySelector('article[data-snippet-id]')?.getAttribute('data-snippet-id'),
+      cardsAhead: document.querySelector('[data-cards-ahead]')?.getAttribute('data-cards-ahead'),
+      status: [...document.querySelectorAll('[role="status"], [aria-live]')].map((node) => node.textContent),
+    }));
+    throw new Error(`no next card after ${previous}: ${JSON.stringify(state)}`, { cause: error });
+  }
 }
 
 async function waitForCardsAhead(count: number) {
@@ -36,11 +48,11 @@ async function waitForCardsAhead(count: number) {
     (wanted) =>
       Number(document.querySelector('[data-cards-ahead]')?.getAttribute('data-cards-ahead')) >= wanted,
     count,
-    { timeout: 10_000 },
+    { timeout: 30_000 },
   );
 }
 
-async function dragCard(direction: 'right' | 'left' | 'up') {
+async function dragCard(direction: 'right' | 'left' | 'up'): Promise<void> {
   const box = await card().boundingBox();
   if (!box) throw new Error('no card to drag');
   const startX = box.x + box.width / 2;
@@ -48,6 +60,9 @@ async function dragCard(direction: 'right' | 'left' | 'up') {
   const far = box.width * 0.45;
   const [dx, dy] = direction === 'right' ? [far, 0] : direction === 'left' ? [-far, 0] : [0, -far];
   await journey.page.mouse.move(startX, startY);
+  // If the page moved the card meanwhile (a notice above it wrapped), aim again.
+  const again = await card().boundingBox();
+  if (again && (Math.abs(again.x - box.x) > 1 || Math.abs(again.y - box.y) > 1)) return dragCard(direction);
   await journey.page.mouse.down();
   await journey.page.mouse.move(startX + dx, startY + dy, { steps: 12 });
   await journey.page.mouse.up();
