@@ -7,6 +7,7 @@ import { campaignRoutes } from './routes/campaigns';
 import { candidateRoutes } from './routes/candidates';
 import { deckRoutes } from './routes/deck';
 import { deskRoutes } from './routes/desk';
+import { exportRoutes } from './routes/exports';
 import { healthRoutes } from './routes/health';
 import { jobRoutes } from './routes/jobs';
 import { labRoutes } from './routes/lab';
@@ -23,6 +24,7 @@ export function routeTable(deps: AppDeps): AnyRouteDef[] {
     ...tokenRoutes(deps),
     ...campaignRoutes(deps),
     ...candidateRoutes(deps),
+    ...exportRoutes(deps),
     ...labRoutes(deps),
     ...deckRoutes(deps),
     ...deskRoutes(deps),
