@@ -5,6 +5,7 @@ import {
   changeCandidate,
   promoteCandidate,
 } from '../../services/candidates/manage-candidates';
+import { addObservatory, candidateWindows, observatories } from '../../services/candidates/transit-windows';
 import type { AppDeps } from '../app-deps';
 import { defineRoute } from '../define-route';
 import { idParams } from '../schemas';
@@ -56,4 +57,41 @@ export const candidateRoutes = (deps: AppDeps) => [
     body: changeBody,
     handle: ({ params, body, person }) => changeCandidate(deps.db, person!, params.id, body),
   }),
+  defineRoute({
+    method: 'get',
+    path: '/candidates/:id/windows',
+    access: 'scientist',
+    summary:
+      'The next transit windows (BJD_TDB and UTC, padded by their uncertainty) and, per observatory, whether each is observable',
+    params: idParams,
+    query: z.object({ count: z.coerce.number().int().min(1).max(100).default(10) }).strict(),
+    handle: ({ params, query }) => candidateWindows(deps.db, params.id, query.count),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/observatories',
+    access: 'scientist',
+    summary: 'The observatories transit windows are planned for',
+    handle: () => observatories(deps.db),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/observatories',
+    access: 'scientist',
+    summary: 'Add an observatory: where it is, its lowest target altitude and its Sun altitude limit',
+    body: observatoryBody,
+    status: 201,
+    handle: ({ body, person }) => addObservatory(deps.db, person!, body),
+  }),
 ];
+
+const observatoryBody = z
+  .object({
+    name: z.string().trim().min(1).max(120),
+    latitudeDeg: z.number().min(-90).max(90),
+    longitudeDeg: z.number().min(-180).max(180),
+    elevationM: z.number().min(-500).max(9_000).default(0),
+    minTargetAltitudeDeg: z.number().min(0).max(89).default(30),
+    sunAltitudeLimitDeg: z.number().min(-90).max(0).default(-12),
+  })
+  .strict();

@@ -12,7 +12,7 @@ afterAll(async () => {
   fs.rmSync(dir, { recursive: true, force: true });
 });
 
-const MIGRATION_COUNT = 5;
+const MIGRATION_COUNT = 6;
 
 const EXPECTED_TABLES = [
   'api_tokens',
@@ -26,6 +26,7 @@ const EXPECTED_TABLES = [
   'flag_clearances',
   'light_curves',
   'newsletters',
+  'observatories',
   'people',
   'period_searches',
   'reliability',
