@@ -66,6 +66,21 @@ describe('period search', () => {
     expect(result.periodogram.periodsDays.length).toBeLessThanOrEqual(2_000);
     const job = await browser.get(`/api/jobs/${encodeURIComponent(started.body.periodSearch.job)}`);
     expect(job.status).toBe(200);
+
+    // Vetting from that search: derived parameters with errors and the diagnostics, each pass or warn.
+    const vetting = await browser.get(`/api/targets/${planetTarget.id}/vetting`);
+    expect(vetting.status).toBe(200);
+    const { derived, diagnostics, source } = vetting.body.vetting;
+    expect(source).toBe('period-search');
+    expect(derived.radius.radiusEarth).toBeGreaterThan(0);
+    expect(derived.radius.radiusEarthErr).toBeGreaterThan(0);
+    expect(derived.orbit.transitProbability).toBeGreaterThan(0);
+    expect(derived.orbit.statement).toMatch(/do not transit from our view/);
+    expect(diagnostics.map((d: { code: string }) => d.code)).toEqual(
+      expect.arrayContaining(['snr', 'radius', 'odd_even', 'secondary', 'duration']),
+    );
+    for (const diagnostic of diagnostics) expect(['pass', 'warn']).toContain(diagnostic.verdict);
+    expect(diagnostics.find((d: { code: string }) => d.code === 'snr').verdict).toBe('pass');
   });
 
   it('answers 404 before any search and for an unknown target, 400 for bad settings, 403 for volunteers', async () => {
@@ -82,6 +97,11 @@ describe('period search', () => {
     expect(inverted.status).toBe(400);
     expect(inverted.body.error.fields).toHaveProperty('maxPeriodDays');
     expect((await browser.get(`/api/targets/${quietTargetId}/period-search`)).status).toBe(404);
+    // Nothing to vet yet: no search and no measured dip.
+    const vetting = await browser.get(`/api/targets/${quietTargetId}/vetting`);
+    expect(vetting.status).toBe(409);
+    expect(vetting.body.error.code).toBe('nothing_to_vet');
+    expect((await browser.get('/api/targets/999999/vetting')).status).toBe(404);
     const volunteer = (await signedIn(test, 'volunteer')).browser;
     expect((await volunteer.post(`/api/targets/${quietTargetId}/period-search`, {})).status).toBe(403);
     expect((await request(test.app).get(`/api/targets/${quietTargetId}/period-search`)).status).toBe(401);

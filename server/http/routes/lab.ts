@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { vetTarget } from '../../services/candidates/vet-target';
 import { latestPeriodSearchOf, requestPeriodSearch } from '../../services/period-search/period-search';
 import { getSnippet, listSnippets, markSnippetQuiet } from '../../services/snippets/read-snippets';
 import { importCatalogue } from '../../services/targets/import-catalogue';
@@ -146,6 +147,15 @@ export const labRoutes = (deps: AppDeps) => [
     status: 202,
     handle: ({ params, body, person }) =>
       requestPeriodSearch(deps.db, deps.queues, person!, params.id, body ?? {}),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/targets/:id/vetting',
+    access: 'scientist',
+    summary:
+      'Derived parameters (Rp, a, a/R★, T_eq, transit probability) and vetting diagnostics, each pass or warn',
+    params: idParams,
+    handle: ({ params }) => vetTarget(deps.db, params.id),
   }),
   defineRoute({
     method: 'get',
