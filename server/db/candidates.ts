@@ -200,3 +200,59 @@ export async function candidateCredits(
   const named = rows.filter((row) => toBool(row.credit_by_name)).map((row) => String(row.display_name));
   return { named, others: rows.length - named.length };
 }
+
+export interface DipTarget {
+  targetId: number;
+  designation: string;
+  dipCount: number;
+  bestSnr: number | null;
+  meanScore: number | null;
+  onCandidate: boolean;
+  dips: TargetDip[];
+}
+
+/** A campaign's settled dips grouped by target: what the Lab's candidate review starts from. */
+export async function dipTargets(db: Q, campaignId: number): Promise<DipTarget[]> {
+  const rows: Raw[] = await db('dips')
+    .join('targets', 'targets.id', 'dips.target_id')
+    .where('dips.campaign_id', campaignId)
+    .orderBy(['dips.target_id', 'dips.time_center'])
+    .select('dips.*', 'targets.designation');
+  const candidates = new Set(
+    (await db('candidates').where({ campaign_id: campaignId }).pluck('target_id')).map(Number),
+  );
+  const byTarget = new Map<number, DipTarget>();
+  for (const row of rows) {
+    const targetId = Number(row.target_id);
+    let entry = byTarget.get(targetId);
+    if (!entry) {
+      entry = {
+        targetId,
+        designation: String(row.designation),
+        dipCount: 0,
+        bestSnr: null,
+        meanScore: null,
+        onCandidate: candidates.has(targetId),
+        dips: [],
+      };
+      byTarget.set(targetId, entry);
+    }
+    entry.dips.push({
+      id: Number(row.id),
+      timeCenter: Number(row.time_center),
+      timeSigma: numOrNull(row.time_sigma),
+      depthPpm: numOrNull(row.depth_ppm),
+      durationHours: numOrNull(row.duration_hours),
+      snr: numOrNull(row.snr),
+      consensusScore: numOrNull(row.consensus_score),
+    });
+  }
+  for (const entry of byTarget.values()) {
+    entry.dipCount = entry.dips.length;
+    const snrs = entry.dips.flatMap((dip) => (dip.snr === null ? [] : [dip.snr]));
+    entry.bestSnr = snrs.length ? Math.max(...snrs) : null;
+    const scores = entry.dips.flatMap((dip) => (dip.consensusScore === null ? [] : [dip.consensusScore]));
+    entry.meanScore = scores.length ? scores.reduce((a, b) => a + b, 0) / scores.length : null;
+  }
+  return [...byTarget.values()];
+}

@@ -62,6 +62,20 @@ beforeAll(async () => {
   otherDipId = await dip(otherTargetId, 5, [unnamed.id]);
 });
 
+describe('the candidate review', () => {
+  it('lists targets with settled dips, the strongest first, with their dips', async () => {
+    const { browser } = await signedIn(test, 'scientist');
+    const answer = await browser.get(`/api/campaigns/${campaignId}/dip-targets`);
+    expect(answer.status).toBe(200);
+    const { targets } = answer.body;
+    // Both targets' dips have SNR 20; the one with two dips comes first.
+    expect(targets.map((t: { targetId: number }) => t.targetId)).toEqual([targetId, otherTargetId]);
+    expect(targets[0]).toMatchObject({ dipCount: 2, bestSnr: 20 });
+    expect(targets[0].dips.map((d: { id: number }) => d.id)).toEqual(dipIds);
+    expect((await browser.get('/api/campaigns/999999/dip-targets')).status).toBe(404);
+  });
+});
+
 describe('the follow-up list', () => {
   it('promotes a target with its dips and the period search’s ephemeris, crediting the named finders', async () => {
     const { browser } = await signedIn(test, 'scientist');

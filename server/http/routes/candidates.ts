@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { CANDIDATE_STATES, DISPOSITIONS } from '../../db/candidates';
 import {
   campaignCandidates,
+  campaignDipTargets,
   changeCandidate,
   promoteCandidate,
 } from '../../services/candidates/manage-candidates';
@@ -39,6 +40,15 @@ export const candidateRoutes = (deps: AppDeps) => [
     body: promoteBody,
     status: 201,
     handle: ({ params, body, person }) => promoteCandidate(deps.db, person!, params.id, body),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/campaigns/:id/dip-targets',
+    access: 'scientist',
+    summary:
+      'Targets with settled dips, ranked by best SNR, number of dips and consensus: the candidate review',
+    params: idParams,
+    handle: ({ params }) => campaignDipTargets(deps.db, params.id),
   }),
   defineRoute({
     method: 'get',

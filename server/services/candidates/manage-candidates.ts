@@ -6,6 +6,7 @@ import {
   candidateCredits,
   type Disposition,
   dipsOfTarget,
+  dipTargets,
   findCandidate,
   findCandidateForTarget,
   insertCandidate,
@@ -168,6 +169,23 @@ export async function campaignCandidates(db: Db, campaignId: number) {
     caution: NOT_CONFIRMED,
     candidates: await Promise.all(candidates.map((candidate) => candidateView(db, candidate))),
   };
+}
+
+/**
+ * The candidate review's list: targets with settled dips, strongest first — by best SNR, then the
+ * number of dips, then the mean consensus score (our own ranking).
+ */
+export async function campaignDipTargets(db: Db, campaignId: number) {
+  if (!(await findCampaignById(db, campaignId))) throw notFound('Campaign');
+  const targets = await dipTargets(db, campaignId);
+  targets.sort(
+    (a, b) =>
+      (b.bestSnr ?? -1) - (a.bestSnr ?? -1) ||
+      b.dipCount - a.dipCount ||
+      (b.meanScore ?? -1) - (a.meanScore ?? -1) ||
+      a.targetId - b.targetId,
+  );
+  return { targets };
 }
 
 export interface CandidateChange {
