@@ -1,6 +1,7 @@
 // The numbers the Desk's volunteer audit shows, and the automatic flags that follow from them. Pure:
 // a volunteer's verdicts in, statistics and flags out.
 import { wilsonInterval } from './completeness';
+import { median } from './statistics';
 
 export type FlagCode = 'too_fast' | 'chance_accuracy' | 'one_answer' | 'burst';
 
@@ -41,13 +42,6 @@ export const FLAG_RULES = {
   burst: { perMinuteAbove: 30 },
 } as const;
 
-function median(values: number[]): number | null {
-  if (values.length === 0) return null;
-  const sorted = [...values].sort((a, b) => a - b);
-  const middle = Math.floor(sorted.length / 2);
-  return sorted.length % 2 ? sorted[middle]! : (sorted[middle - 1]! + sorted[middle]!) / 2;
-}
-
 /** The most timestamps within any window of `windowMs` (two pointers over the sorted times). */
 export function maxInWindow(timesMs: number[], windowMs: number): number {
   const sorted = [...timesMs].sort((a, b) => a - b);
@@ -79,12 +73,13 @@ export function volunteerStats(verdicts: readonly AuditVerdict[]): VolunteerStat
     }
   }
   const total = verdicts.length;
+  const elapsed = verdicts.flatMap((verdict) => (verdict.elapsedMs === null ? [] : [verdict.elapsedMs]));
   const top = (Object.entries(counts) as [AuditVerdict['answer'], number][]).sort((a, b) => b[1] - a[1])[0]!;
   return {
     verdicts: total,
     controls: { seen, correct, accuracy: seen > 0 ? correct / seen : null },
     agreement: { compared, agreed, share: compared > 0 ? agreed / compared : null },
-    medianMs: median(verdicts.flatMap((verdict) => (verdict.elapsedMs === null ? [] : [verdict.elapsedMs]))),
+    medianMs: elapsed.length > 0 ? median(elapsed) : null,
     topAnswer: total > 0 ? { answer: top[0], share: top[1] / total } : null,
     maxPerMinute: maxInWindow(
       verdicts.map((verdict) => verdict.atMs),

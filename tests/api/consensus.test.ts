@@ -4,21 +4,13 @@ import { randomUUID } from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { createCampaign } from '../../seeds/factories/campaigns';
 import { createSnippetFixtures } from '../../seeds/factories/snippets';
+import { eventually } from '../support/eventually';
 import { createTestApp, signedIn, type TestApp } from './support/test-app';
 
 let test: TestApp;
 beforeAll(async () => {
   test = await createTestApp({ queues: true });
 });
-
-/** A hang guard while the background job works, not a speed limit. */
-async function eventually(check: () => Promise<boolean>, what: string): Promise<void> {
-  for (let i = 0; i < 600; i += 1) {
-    if (await check()) return;
-    await new Promise((resolve) => setTimeout(resolve, 50));
-  }
-  throw new Error(`never happened: ${what}`);
-}
 
 describe('consensus behind POST /api/verdicts', () => {
   it('settles a snippet once enough volunteers agree, and the Deck stops serving it', async () => {

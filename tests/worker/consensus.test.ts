@@ -19,6 +19,7 @@ import { consensusProcessor } from '../../worker/processors/consensus';
 import { createQueues, type Queues } from '../../worker/queues';
 import { createRedisConnection } from '../../worker/redis-connection';
 import { testDatabases } from '../support/databases';
+import { eventually } from '../support/eventually';
 
 const config = loadConfig({ NODE_ENV: 'test', LOG_LEVEL: 'silent' });
 const logger = createLogger(config);
@@ -38,15 +39,6 @@ describe.each(testDatabases)('the consensus jobs on $name', (database) => {
     await queues.close();
     await drop();
   });
-
-  /** Waits for a condition the background job should bring about; a hang guard, not a speed limit. */
-  async function eventually(check: () => Promise<boolean>, what: string): Promise<void> {
-    for (let i = 0; i < 600; i += 1) {
-      if (await check()) return;
-      await new Promise((resolve) => setTimeout(resolve, 50));
-    }
-    throw new Error(`never happened: ${what}`);
-  }
 
   async function volunteers(count: number): Promise<number[]> {
     const ids: number[] = [];

@@ -4,6 +4,7 @@ import type { Db } from '../../db/knex';
 import { notFound } from '../../errors';
 import { scoreSnippet } from '../../science/consensus/posterior';
 import type { WeightedVerdict } from '../../science/consensus/types';
+import { median } from '../../science/statistics';
 import { campaignDipRate, campaignPriors, currentReliability } from '../consensus/reliability-priors';
 
 export interface SplitsQuery {
@@ -24,16 +25,6 @@ export function deskSplits(db: Db, query: SplitsQuery) {
 }
 
 const HOURS_PER_DAY = 24;
-
-function median(values: ArrayLike<number>): number {
-  const sorted = Array.from(values).sort((a, b) => a - b);
-  const middle = Math.floor(sorted.length / 2);
-  return sorted.length === 0
-    ? 1
-    : sorted.length % 2
-      ? sorted[middle]!
-      : (sorted[middle - 1]! + sorted[middle]!) / 2;
-}
 
 /**
  * Everything a moderator needs to rule on one snippet: the data at full resolution, each verdict with
@@ -98,7 +89,8 @@ export async function splitReview(db: Db, snippetId: number) {
       flux.push(series.flux[i]!);
     }
   }
-  const level = median(flux);
+  // The level the ppm are relative to; 1 for a snippet without points (nothing to draw anyway).
+  const level = flux.length > 0 ? median(flux) : 1;
   const neighbours = await neighbourSnippets(db, snippet);
   return {
     review: {

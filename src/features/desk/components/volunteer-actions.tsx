@@ -116,6 +116,30 @@ function Failure({ text }: { text: string | null }) {
   ) : null;
 }
 
+/** A form's submit button and Cancel, side by side. */
+function FormActions({
+  busy = false,
+  danger = false,
+  onCancel,
+  children,
+}: {
+  busy?: boolean;
+  danger?: boolean;
+  onCancel: () => void;
+  children: ReactNode;
+}) {
+  return (
+    <div className="flex flex-wrap gap-2">
+      <Button type="submit" busy={busy} variant={danger ? 'danger' : undefined}>
+        {children}
+      </Button>
+      <Button variant="secondary" onClick={onCancel}>
+        Cancel
+      </Button>
+    </div>
+  );
+}
+
 function ClearFlagForm({ volunteer, code, onClose, onOutcome }: FormProps & { code: string }) {
   const clear = useClearVolunteerFlag();
   const [note, setNote] = useState('');
@@ -155,14 +179,9 @@ function ClearFlagForm({ volunteer, code, onClose, onOutcome }: FormProps & { co
           error={problem}
         />
         <Failure text={failed} />
-        <div className="flex flex-wrap gap-2">
-          <Button type="submit" busy={clear.isPending}>
-            Clear flag
-          </Button>
-          <Button variant="secondary" onClick={onClose}>
-            Cancel
-          </Button>
-        </div>
+        <FormActions busy={clear.isPending} onCancel={onClose}>
+          Clear flag
+        </FormActions>
       </form>
     </Panel>
   );
@@ -206,14 +225,9 @@ function WarningForm({ volunteer, onClose, onOutcome }: FormProps) {
       <form className="flex flex-col gap-4" onSubmit={submit} noValidate>
         <NoteField label="Warning" value={note} onChange={setNote} limit={2000} required error={problem} />
         <Failure text={failed} />
-        <div className="flex flex-wrap gap-2">
-          <Button type="submit" busy={warn.isPending}>
-            Record warning
-          </Button>
-          <Button variant="secondary" onClick={onClose}>
-            Cancel
-          </Button>
-        </div>
+        <FormActions busy={warn.isPending} onCancel={onClose}>
+          Record warning
+        </FormActions>
       </form>
     </Panel>
   );
@@ -298,14 +312,9 @@ function SuspendForm({ volunteer, onClose, onOutcome }: FormProps) {
             error={problem}
           />
           <Failure text={failed} />
-          <div className="flex flex-wrap gap-2">
-            <Button type="submit" variant="danger">
-              Suspend…
-            </Button>
-            <Button variant="secondary" onClick={onClose}>
-              Cancel
-            </Button>
-          </div>
+          <FormActions danger onCancel={onClose}>
+            Suspend…
+          </FormActions>
         </form>
       )}
     </Panel>
@@ -350,14 +359,9 @@ function RestoreForm({ volunteer, onClose, onOutcome }: FormProps) {
           error={problem}
         />
         <Failure text={failed} />
-        <div className="flex flex-wrap gap-2">
-          <Button type="submit" busy={restore.isPending}>
-            Restore {volunteer.displayName}
-          </Button>
-          <Button variant="secondary" onClick={onClose}>
-            Cancel
-          </Button>
-        </div>
+        <FormActions busy={restore.isPending} onCancel={onClose}>
+          Restore {volunteer.displayName}
+        </FormActions>
       </form>
     </Panel>
   );
