@@ -162,6 +162,7 @@ export async function updateCandidate(
 
 export interface TargetDip {
   id: number;
+  snippetId: number;
   timeCenter: number;
   timeSigma: number | null;
   depthPpm: number | null;
@@ -174,15 +175,20 @@ export async function dipsOfTarget(db: Q, campaignId: number, targetId: number):
   const rows: Raw[] = await db('dips')
     .where({ campaign_id: campaignId, target_id: targetId })
     .orderBy('time_center');
-  return rows.map((row) => ({
+  return rows.map(toTargetDip);
+}
+
+function toTargetDip(row: Raw): TargetDip {
+  return {
     id: Number(row.id),
+    snippetId: Number(row.snippet_id),
     timeCenter: Number(row.time_center),
     timeSigma: numOrNull(row.time_sigma),
     depthPpm: numOrNull(row.depth_ppm),
     durationHours: numOrNull(row.duration_hours),
     snr: numOrNull(row.snr),
     consensusScore: numOrNull(row.consensus_score),
-  }));
+  };
 }
 
 /** Who found the candidate's dips: the names of those who agreed to be named, and how many others. */
@@ -237,15 +243,7 @@ export async function dipTargets(db: Q, campaignId: number): Promise<DipTarget[]
       };
       byTarget.set(targetId, entry);
     }
-    entry.dips.push({
-      id: Number(row.id),
-      timeCenter: Number(row.time_center),
-      timeSigma: numOrNull(row.time_sigma),
-      depthPpm: numOrNull(row.depth_ppm),
-      durationHours: numOrNull(row.duration_hours),
-      snr: numOrNull(row.snr),
-      consensusScore: numOrNull(row.consensus_score),
-    });
+    entry.dips.push(toTargetDip(row));
   }
   for (const entry of byTarget.values()) {
     entry.dipCount = entry.dips.length;

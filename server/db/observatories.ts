@@ -53,3 +53,34 @@ export async function insertObservatory(
     .returning('*');
   return rows[0] ? toRow(rows[0]) : undefined;
 }
+
+export async function findObservatory(db: Q, id: number): Promise<ObservatoryRow | undefined> {
+  const row = await db('observatories').where({ id }).first();
+  return row ? toRow(row) : undefined;
+}
+
+/** Changes an observatory; undefined when the new name is another observatory's. */
+export async function updateObservatory(
+  db: Q,
+  id: number,
+  changes: Partial<Omit<ObservatoryRow, 'id' | 'createdAt'>>,
+): Promise<ObservatoryRow | undefined> {
+  if (changes.name !== undefined) {
+    const clash = await db('observatories').where({ name: changes.name }).whereNot({ id }).first('id');
+    if (clash) return undefined;
+  }
+  const update: Record<string, unknown> = { updated_at: nowIso() };
+  if (changes.name !== undefined) update.name = changes.name;
+  if (changes.latitudeDeg !== undefined) update.latitude_deg = changes.latitudeDeg;
+  if (changes.longitudeDeg !== undefined) update.longitude_deg = changes.longitudeDeg;
+  if (changes.elevationM !== undefined) update.elevation_m = changes.elevationM;
+  if (changes.minTargetAltitudeDeg !== undefined)
+    update.min_target_altitude_deg = changes.minTargetAltitudeDeg;
+  if (changes.sunAltitudeLimitDeg !== undefined) update.sun_altitude_limit_deg = changes.sunAltitudeLimitDeg;
+  await db('observatories').where({ id }).update(update);
+  return findObservatory(db, id);
+}
+
+export async function deleteObservatory(db: Q, id: number): Promise<boolean> {
+  return (await db('observatories').where({ id }).delete()) > 0;
+}

@@ -71,6 +71,22 @@ export const router = createBrowserRouter([
             lazy: () => lab().then((module) => ({ Component: module.LabTargetRoute })),
           },
           {
+            path: paths.labCandidateReview.path,
+            lazy: () => lab().then((module) => ({ Component: module.LabCandidateReviewRoute })),
+          },
+          {
+            path: paths.labFollowUp.path,
+            lazy: () => lab().then((module) => ({ Component: module.LabFollowUpRoute })),
+          },
+          {
+            path: paths.labCandidate.path,
+            lazy: () => lab().then((module) => ({ Component: module.LabCandidateRoute })),
+          },
+          {
+            path: paths.labObservatories.path,
+            lazy: () => lab().then((module) => ({ Component: module.LabObservatoriesRoute })),
+          },
+          {
             path: paths.labTokens.path,
             lazy: () => lab().then((module) => ({ Component: module.LabTokensRoute })),
           },

@@ -26,6 +26,8 @@ function deskQueueSearch({ campaign, order, page }: DeskQueueHref): string {
   return text ? `?${text}` : '';
 }
 
+export type ExportFormat = 'csv' | 'json' | 'votable';
+
 export const paths = {
   home: { path: '/', getHref: () => '/' },
   signIn: { path: '/sign-in', getHref: (redirectTo?: string) => withRedirect('/sign-in', redirectTo) },
@@ -58,6 +60,20 @@ export const paths = {
       `/lab/campaigns/${campaignId}/snippets${filter.target ? `?target=${encodeURIComponent(filter.target)}` : ''}`,
   },
   labTarget: { path: '/lab/targets/:targetId', getHref: (targetId: number) => `/lab/targets/${targetId}` },
+  /** A campaign's settled dips grouped by target, strongest first: where candidates are chosen. */
+  labCandidateReview: {
+    path: '/lab/campaigns/:campaignId/review',
+    getHref: (campaignId: number) => `/lab/campaigns/${campaignId}/review`,
+  },
+  labFollowUp: {
+    path: '/lab/campaigns/:campaignId/follow-up',
+    getHref: (campaignId: number) => `/lab/campaigns/${campaignId}/follow-up`,
+  },
+  labCandidate: {
+    path: '/lab/candidates/:candidateId',
+    getHref: (candidateId: number) => `/lab/candidates/${candidateId}`,
+  },
+  labObservatories: { path: '/lab/observatories', getHref: () => '/lab/observatories' },
   labTokens: { path: '/lab/tokens', getHref: () => '/lab/tokens' },
   labApiReference: { path: '/lab/api', getHref: () => '/lab/api' },
   admin: { path: '/admin', getHref: () => '/admin' },
@@ -87,6 +103,20 @@ export const apiPaths = {
   upload: (id: number) => `${env.VITE_API_BASE}/uploads/${id}`,
   snippet: (id: number) => `${env.VITE_API_BASE}/snippets/${id}`,
   target: (id: number) => `${env.VITE_API_BASE}/targets/${id}`,
+  targetPeriodSearch: (id: number) => `${env.VITE_API_BASE}/targets/${id}/period-search`,
+  targetVetting: (id: number) => `${env.VITE_API_BASE}/targets/${id}/vetting`,
+  campaignDipTargets: (id: number) => `${env.VITE_API_BASE}/campaigns/${id}/dip-targets`,
+  campaignCandidates: (id: number) => `${env.VITE_API_BASE}/campaigns/${id}/candidates`,
+  candidate: (id: number) => `${env.VITE_API_BASE}/candidates/${id}`,
+  candidateWindows: (id: number, count: number) =>
+    `${env.VITE_API_BASE}/candidates/${id}/windows?count=${count}`,
+  observatories: () => `${env.VITE_API_BASE}/observatories`,
+  observatory: (id: number) => `${env.VITE_API_BASE}/observatories/${id}`,
+  /** Downloads: the browser follows these links itself, with the session cookie. */
+  campaignFollowUpExport: (id: number, format: ExportFormat) =>
+    `${env.VITE_API_BASE}/campaigns/${id}/follow-up?format=${format}`,
+  campaignConsensusExport: (id: number, format: ExportFormat) =>
+    `${env.VITE_API_BASE}/campaigns/${id}/consensus?format=${format}`,
   tokens: () => `${env.VITE_API_BASE}/tokens`,
   token: (id: number) => `${env.VITE_API_BASE}/tokens/${id}`,
   openApi: () => `${env.VITE_API_BASE}/openapi.json`,

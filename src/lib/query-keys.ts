@@ -100,6 +100,22 @@ export const queryKeys = {
     all: () => ['targets'] as const,
     list: (params: TargetListParams) => ['targets', params] as const,
     detail: (id: number) => ['targets', { id }] as const,
+    // Under the target, so that what refreshes a target (a promotion) refreshes these too.
+    periodSearch: (id: number) => ['targets', { id, part: 'period-search' }] as const,
+    vetting: (id: number) => ['targets', { id, part: 'vetting' }] as const,
+  },
+  // A campaign's dip targets and candidates change together (a promotion marks its target), so they
+  // share the resource: invalidating 'candidates' refreshes the review list, the follow-up list and
+  // each candidate's windows.
+  candidates: {
+    all: () => ['candidates'] as const,
+    dipTargets: (campaignId: number) => ['candidates', { campaignId, part: 'dip-targets' }] as const,
+    ofCampaign: (campaignId: number) => ['candidates', { campaignId }] as const,
+    windows: (candidateId: number, count: number) => ['candidates', { candidateId, count }] as const,
+  },
+  observatories: {
+    all: () => ['observatories'] as const,
+    list: () => ['observatories', {}] as const,
   },
   uploads: {
     all: () => ['uploads'] as const,

@@ -128,4 +128,48 @@ describe('observatories and transit windows', () => {
     const volunteer = (await signedIn(test, 'volunteer')).browser;
     expect((await volunteer.get(`/api/candidates/${candidateId}/windows`)).status).toBe(403);
   });
+
+  it('changes and removes an observatory, refusing a taken name, an empty change and a latitude off the Earth', async () => {
+    const { browser } = await signedIn(test, 'scientist');
+    const spare = await browser.post('/api/observatories', {
+      name: 'Spare dome',
+      latitudeDeg: 10,
+      longitudeDeg: 20,
+    });
+    expect(spare.status).toBe(201);
+    const id = spare.body.observatory.id;
+    const changed = await browser.patch(`/api/observatories/${id}`, {
+      minTargetAltitudeDeg: 40,
+      elevationM: 900,
+    });
+    expect(changed.status).toBe(200);
+    expect(changed.body.observatory).toMatchObject({
+      name: 'Spare dome',
+      minTargetAltitudeDeg: 40,
+      elevationM: 900,
+      sunAltitudeLimitDeg: -12,
+    });
+    const taken = await browser.patch(`/api/observatories/${id}`, { name: 'Desert ridge 0.6 m' });
+    expect(taken.status).toBe(409);
+    expect(taken.body.error.fields).toHaveProperty('name');
+    expect((await browser.patch(`/api/observatories/${id}`, {})).status).toBe(400);
+    const off = await browser.patch(`/api/observatories/${id}`, { latitudeDeg: -91 });
+    expect(off.status).toBe(400);
+    expect(off.body.error.fields).toHaveProperty('latitudeDeg');
+    expect((await browser.patch('/api/observatories/999999', { name: 'x' })).status).toBe(404);
+    const volunteer = (await signedIn(test, 'volunteer')).browser;
+    expect((await volunteer.delete(`/api/observatories/${id}`)).status).toBe(403);
+
+    expect((await browser.delete(`/api/observatories/${id}`)).status).toBe(200);
+    expect((await browser.delete(`/api/observatories/${id}`)).status).toBe(404);
+    const names = (await browser.get('/api/observatories')).body.observatories.map(
+      (observatory: { name: string }) => observatory.name,
+    );
+    expect(names).toEqual(['Desert ridge 0.6 m']);
+    const actions = await test
+      .db('audit_log')
+      .where({ entity_type: 'observatory', entity_id: String(id) })
+      .pluck('action');
+    expect(actions.sort()).toEqual(['observatory.changed', 'observatory.created', 'observatory.removed']);
+  });
 });

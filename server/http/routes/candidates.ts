@@ -6,7 +6,13 @@ import {
   changeCandidate,
   promoteCandidate,
 } from '../../services/candidates/manage-candidates';
-import { addObservatory, candidateWindows, observatories } from '../../services/candidates/transit-windows';
+import {
+  addObservatory,
+  candidateWindows,
+  changeObservatory,
+  observatories,
+  removeObservatory,
+} from '../../services/candidates/transit-windows';
 import type { AppDeps } from '../app-deps';
 import { defineRoute } from '../define-route';
 import { idParams } from '../schemas';
@@ -93,6 +99,23 @@ export const candidateRoutes = (deps: AppDeps) => [
     status: 201,
     handle: ({ body, person }) => addObservatory(deps.db, person!, body),
   }),
+  defineRoute({
+    method: 'patch',
+    path: '/observatories/:id',
+    access: 'scientist',
+    summary: 'Change an observatory: its name, place, lowest target altitude or Sun altitude limit',
+    params: idParams,
+    body: observatoryChangeBody,
+    handle: ({ params, body, person }) => changeObservatory(deps.db, person!, params.id, body),
+  }),
+  defineRoute({
+    method: 'delete',
+    path: '/observatories/:id',
+    access: 'scientist',
+    summary: 'Remove an observatory: windows are no longer planned for it',
+    params: idParams,
+    handle: ({ params, person }) => removeObservatory(deps.db, person!, params.id),
+  }),
 ];
 
 const observatoryBody = z
@@ -105,3 +128,13 @@ const observatoryBody = z
     sunAltitudeLimitDeg: z.number().min(-90).max(0).default(-12),
   })
   .strict();
+
+const observatoryChangeBody = observatoryBody
+  .extend({
+    elevationM: observatoryBody.shape.elevationM.removeDefault(),
+    minTargetAltitudeDeg: observatoryBody.shape.minTargetAltitudeDeg.removeDefault(),
+    sunAltitudeLimitDeg: observatoryBody.shape.sunAltitudeLimitDeg.removeDefault(),
+  })
+  .partial()
+  .strict()
+  .refine((body) => Object.keys(body).length > 0, { message: 'Change at least one field', path: ['name'] });

@@ -1,7 +1,14 @@
 import { appendAudit } from '../../db/audit-log';
 import { findCandidate } from '../../db/candidates';
 import type { Db } from '../../db/knex';
-import { insertObservatory, listObservatories, type ObservatoryRow } from '../../db/observatories';
+import {
+  deleteObservatory,
+  findObservatory,
+  insertObservatory,
+  listObservatories,
+  type ObservatoryRow,
+  updateObservatory,
+} from '../../db/observatories';
 import type { PersonRow } from '../../db/people';
 import { findTargetById } from '../../db/targets';
 import { AppError, notFound } from '../../errors';
@@ -27,11 +34,7 @@ export async function addObservatory(
   input: Omit<ObservatoryRow, 'id' | 'createdAt'>,
 ) {
   const observatory = await insertObservatory(db, { ...input, createdBy: scientist.id });
-  if (!observatory) {
-    throw new AppError('observatory_exists', 'An observatory of that name exists', 'conflict', {
-      name: 'Already taken',
-    });
-  }
+  if (!observatory) throw nameTaken();
   await appendAudit(db, {
     actorId: scientist.id,
     action: 'observatory.created',
@@ -40,6 +43,49 @@ export async function addObservatory(
     after: input,
   });
   return { observatory };
+}
+
+const nameTaken = () =>
+  new AppError('observatory_exists', 'An observatory of that name exists', 'conflict', {
+    name: 'Already taken',
+  });
+
+export async function changeObservatory(
+  db: Db,
+  scientist: PersonRow,
+  id: number,
+  changes: Partial<Omit<ObservatoryRow, 'id' | 'createdAt'>>,
+) {
+  return db.transaction(async (trx) => {
+    const before = await findObservatory(trx, id);
+    if (!before) throw notFound('Observatory');
+    const observatory = await updateObservatory(trx, id, changes);
+    if (!observatory) throw nameTaken();
+    await appendAudit(trx, {
+      actorId: scientist.id,
+      action: 'observatory.changed',
+      entityType: 'observatory',
+      entityId: id,
+      before,
+      after: changes,
+    });
+    return { observatory };
+  });
+}
+
+export async function removeObservatory(db: Db, scientist: PersonRow, id: number) {
+  await db.transaction(async (trx) => {
+    const before = await findObservatory(trx, id);
+    if (!before || !(await deleteObservatory(trx, id))) throw notFound('Observatory');
+    await appendAudit(trx, {
+      actorId: scientist.id,
+      action: 'observatory.removed',
+      entityType: 'observatory',
+      entityId: id,
+      before,
+    });
+  });
+  return { removed: id };
 }
 
 /**

@@ -1,3 +1,4 @@
+import { dipsOfTarget, findCandidateForTarget } from '../../db/candidates';
 import type { Db } from '../../db/knex';
 import { fromJson } from '../../db/rows';
 import { unpackLightCurve } from '../../db/series-codec';
@@ -82,7 +83,12 @@ export async function getTarget(db: Db, targetId: number) {
     .orderBy('time_start')
     .select('id', 'kind', 'state', 'time_start', 'time_end', 'consensus_score', 'planted_truth');
   const [counts] = await db('snippets').where({ target_id: targetId }).count<{ n: number }[]>({ n: '*' });
+  const dips = await dipsOfTarget(db, target.campaignId, targetId);
+  const candidate = await findCandidateForTarget(db, target.campaignId, targetId);
   return {
+    /** The settled dips volunteers found, and the candidate this target became, if it did. */
+    dips,
+    candidateId: candidate ? Number(candidate.id) : null,
     target: { ...target, lightCurveCount: lightCurves.length, snippetCount: Number(counts?.n ?? 0) },
     lightCurves,
     snippets: snippets.map((row: Record<string, unknown>) => ({

@@ -4,8 +4,12 @@ import { NotFoundRoute } from '@/app/routes/not-found';
 import { ApiReferencePage } from '@/features/lab/components/api-reference-page';
 import { CampaignPage } from '@/features/lab/components/campaign-page';
 import { CampaignsPage } from '@/features/lab/components/campaigns-page';
+import { CandidatePage } from '@/features/lab/components/candidate-page';
+import { CandidateReviewPage } from '@/features/lab/components/candidate-review-page';
+import { FollowUpPage } from '@/features/lab/components/follow-up-page';
 import { LabNav } from '@/features/lab/components/lab-nav';
 import { NewCampaignPage } from '@/features/lab/components/new-campaign-page';
+import { ObservatoriesPage } from '@/features/lab/components/observatories-page';
 import { SnippetBrowserPage } from '@/features/lab/components/snippet-browser-page';
 import { TargetPage } from '@/features/lab/components/target-page';
 import { TokensPage } from '@/features/lab/components/tokens-page';
@@ -59,6 +63,33 @@ export function LabSnippetsRoute() {
 export function LabTargetRoute() {
   const targetId = useIdParam('targetId');
   return targetId === null ? <NotFoundRoute /> : <TargetPage key={targetId} targetId={targetId} />;
+}
+
+export function LabCandidateReviewRoute() {
+  const campaignId = useIdParam('campaignId');
+  return campaignId === null ? (
+    <NotFoundRoute />
+  ) : (
+    <CandidateReviewPage key={campaignId} campaignId={campaignId} />
+  );
+}
+
+export function LabFollowUpRoute() {
+  const campaignId = useIdParam('campaignId');
+  return campaignId === null ? <NotFoundRoute /> : <FollowUpPage key={campaignId} campaignId={campaignId} />;
+}
+
+export function LabCandidateRoute() {
+  const candidateId = useIdParam('candidateId');
+  return candidateId === null ? (
+    <NotFoundRoute />
+  ) : (
+    <CandidatePage key={candidateId} candidateId={candidateId} />
+  );
+}
+
+export function LabObservatoriesRoute() {
+  return <ObservatoriesPage />;
 }
 
 export function LabTokensRoute() {

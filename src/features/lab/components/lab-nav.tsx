@@ -5,11 +5,17 @@ const sections = [
   {
     label: 'Campaigns',
     href: paths.lab.getHref(),
-    // A campaign, its snippets and its targets all belong under Campaigns.
+    // A campaign, its snippets, targets, candidates and follow-up list all belong under Campaigns.
     matches: (pathname: string) =>
       pathname === paths.lab.path ||
       pathname.startsWith('/lab/campaigns') ||
-      pathname.startsWith('/lab/targets'),
+      pathname.startsWith('/lab/targets') ||
+      pathname.startsWith('/lab/candidates'),
+  },
+  {
+    label: 'Observatories',
+    href: paths.labObservatories.getHref(),
+    matches: (pathname: string) => pathname.startsWith(paths.labObservatories.path),
   },
   {
     label: 'API tokens',

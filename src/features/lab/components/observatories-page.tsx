@@ -1,0 +1,4 @@
+// Placeholder while the screen is being built.
+export function ObservatoriesPage() {
+  return <p className="text-muted">Coming soon.</p>;
+}
