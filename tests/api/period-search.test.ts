@@ -41,6 +41,13 @@ async function finished(browser: Awaited<ReturnType<typeof signedIn>>['browser']
     const answer = await browser.get(`/api/targets/${targetId}/period-search`);
     if (answer.body.periodSearch?.status === 'done' || answer.body.periodSearch?.status === 'failed')
       return answer;
+    // While it waits or runs, the answer carries the job's progress (or null before the job reports).
+    const { progress } = answer.body.periodSearch;
+    if (progress !== null) {
+      expect(progress.percent).toBeGreaterThanOrEqual(0);
+      expect(progress.percent).toBeLessThanOrEqual(100);
+      expect(typeof progress.stage).toBe('string');
+    }
     await new Promise((resolve) => setTimeout(resolve, 100));
   }
   throw new Error('the period search never finished');
@@ -57,6 +64,7 @@ describe('period search', () => {
     expect(done.status).toBe(200);
     const { result } = done.body.periodSearch;
     expect(done.body.periodSearch.status).toBe('done');
+    expect(done.body.periodSearch.progress).toBeNull();
     // Within 1 % of the true period, or at its half or double (BLS may lock on an alias).
     const ratio = result.best.periodDays / planetTarget.periodDays;
     expect([0.5, 1, 2].some((alias) => Math.abs(ratio / alias - 1) < 0.01)).toBe(true);

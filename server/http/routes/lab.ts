@@ -164,7 +164,7 @@ export const labRoutes = (deps: AppDeps) => [
     summary:
       'The latest period search of a target: its state, or its result (period, t0, depth, duration, SNR, diagnostics)',
     params: idParams,
-    handle: ({ params }) => latestPeriodSearchOf(deps.db, params.id),
+    handle: ({ params }) => latestPeriodSearchOf(deps.db, deps.queues, params.id),
   }),
 ];
 

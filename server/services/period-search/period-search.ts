@@ -1,4 +1,4 @@
-import { enqueue, type Queues } from '../../../worker/queues';
+import { enqueue, type JobProgress, parseJobRef, type Queues } from '../../../worker/queues';
 import { findCampaignById } from '../../db/campaigns';
 import type { Db } from '../../db/knex';
 import type { PersonRow } from '../../db/people';
@@ -93,11 +93,25 @@ export async function requestPeriodSearch(
   return { periodSearch: periodSearchView({ ...search, jobRef: job }) };
 }
 
-export async function latestPeriodSearchOf(db: Db, targetId: number) {
+/**
+ * The latest period search of a target; while it waits or runs, with its job's progress, so that any
+ * scientist looking at the target (not only the one who started it) can follow it.
+ */
+export async function latestPeriodSearchOf(db: Db, queues: Queues | undefined, targetId: number) {
   await findTarget(db, targetId);
   const row = await latestPeriodSearch(db, targetId);
   if (!row) throw notFound('Period search');
-  return { periodSearch: periodSearchView(row) };
+  const progress =
+    row.status === 'queued' || row.status === 'running' ? await jobProgress(queues, row) : null;
+  return { periodSearch: { ...periodSearchView(row), progress } };
+}
+
+async function jobProgress(queues: Queues | undefined, row: PeriodSearchRow): Promise<JobProgress | null> {
+  const parsed = row.jobRef ? parseJobRef(row.jobRef) : null;
+  if (!queues || !parsed) return null;
+  const job = await queues.byKey[parsed.queueKey].getJob(parsed.id);
+  const progress: unknown = job ? await job.progress() : null;
+  return progress && typeof progress === 'object' && 'percent' in progress ? (progress as JobProgress) : null;
 }
 
 /** Keeps the periodogram drawable: the maximum of each of `points` equal slices. */
