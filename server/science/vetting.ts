@@ -10,6 +10,7 @@ import {
   stellarDensityFromMassRadius,
   transitProbability,
 } from './derived-parameters';
+import { FLAT_SHARE_MIN, type ShapeFit } from './transit-shape';
 
 export interface TransitMeasurement {
   /** Null for a single transit. */
@@ -23,6 +24,8 @@ export interface TransitMeasurement {
   oddEvenDifferenceSigma?: number | null;
   depthSecondaryPpm?: number | null;
   depthSecondaryErrPpm?: number | null;
+  /** The fitted trapezoid (see transit-shape.ts); null when the data could not tell, absent when not fitted. */
+  shape?: ShapeFit | null;
 }
 
 export interface Star {
@@ -32,7 +35,7 @@ export interface Star {
 }
 
 export interface Diagnostic {
-  code: 'snr' | 'radius' | 'odd_even' | 'secondary' | 'duration';
+  code: 'snr' | 'radius' | 'odd_even' | 'secondary' | 'shape' | 'duration';
   label: string;
   value: number | null;
   verdict: 'pass' | 'warn';
@@ -45,6 +48,8 @@ export const DEFAULT_SNR_THRESHOLD = 7.1;
 export const MAX_PLANET_RADIUS_JUPITER = 2;
 /** Odd and even depths, or a secondary eclipse, this many σ apart from nothing: our own threshold (3σ). */
 export const SIGMA_WARN = 3;
+/** A V must fit better than the best flat-bottomed trapezoid by this Δχ² to warn: 3σ for one parameter (common practice). */
+export const SHAPE_DELTA_CHI_SQUARE = 9;
 /** Observed over expected (central) duration outside this range: the star's density does not fit. Our own range. */
 export const DURATION_RATIO_RANGE = [0.25, 1.5] as const;
 
@@ -157,6 +162,7 @@ export function vettingDiagnostics(
       detail: `A dip of ${round(transit.depthSecondaryPpm, 0)} ppm at phase 0.5 (${round(significance, 1)}σ; warn from ${SIGMA_WARN}σ)`,
     });
   }
+  if (transit.shape !== undefined) diagnostics.push(shapeDiagnostic(transit.shape));
   if (transit.periodDays !== null && derived.radius.radiusRatio < 1) {
     const expected = expectedDurationHours({
       periodDays: transit.periodDays,
@@ -173,4 +179,29 @@ export function vettingDiagnostics(
     });
   }
   return diagnostics;
+}
+
+function shapeDiagnostic(shape: ShapeFit | null): Diagnostic {
+  const label = 'V-shape or flat bottom';
+  if (shape === null) {
+    return {
+      code: 'shape',
+      label,
+      value: null,
+      verdict: 'warn',
+      detail: 'Too few points in the transit to tell a V from a flat bottom: look at the fold',
+    };
+  }
+  const share = round(shape.flatShare * 100, 0);
+  const preference = shape.flatChiSquare - shape.chiSquare;
+  const vShaped = shape.flatShare < FLAT_SHARE_MIN && preference > SHAPE_DELTA_CHI_SQUARE;
+  return {
+    code: 'shape',
+    label,
+    value: round(shape.flatShare, 2),
+    verdict: vShaped ? 'warn' : 'pass',
+    detail: vShaped
+      ? `V-shaped: flat for ${share} % of the ${round(shape.totalDurationHours, 1)} h transit, and the best flat-bottomed fit is worse by Δχ² = ${round(preference, 1)} (a grazing eclipsing binary is likely)`
+      : `Flat for ${share} % of the ${round(shape.totalDurationHours, 1)} h transit (warn below ${FLAT_SHARE_MIN * 100} % when a flat bottom fits worse by Δχ² > ${SHAPE_DELTA_CHI_SQUARE})`,
+  };
 }

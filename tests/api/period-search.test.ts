@@ -85,10 +85,13 @@ describe('period search', () => {
     expect(derived.orbit.transitProbability).toBeGreaterThan(0);
     expect(derived.orbit.statement).toMatch(/do not transit from our view/);
     expect(diagnostics.map((d: { code: string }) => d.code)).toEqual(
-      expect.arrayContaining(['snr', 'radius', 'odd_even', 'secondary', 'duration']),
+      expect.arrayContaining(['snr', 'radius', 'odd_even', 'secondary', 'shape', 'duration']),
     );
     for (const diagnostic of diagnostics) expect(['pass', 'warn']).toContain(diagnostic.verdict);
-    expect(diagnostics.find((d: { code: string }) => d.code === 'snr').verdict).toBe('pass');
+    const verdictOf = (code: string) => diagnostics.find((d: { code: string }) => d.code === code).verdict;
+    expect(verdictOf('snr')).toBe('pass');
+    // The survey's planet is a planet: its transit is flat-bottomed, fitted on the stored light curve.
+    expect(verdictOf('shape')).toBe('pass');
   });
 
   it('answers 404 before any search and for an unknown target, 400 for bad settings, 403 for volunteers', async () => {

@@ -142,7 +142,13 @@ export async function candidateWindows(db: Db, candidateId: number, count: numbe
     });
   }
   return {
-    candidate: { id: candidate.id, designation: candidate.designation, periodDays: candidate.periodDays },
+    candidate: {
+      id: candidate.id,
+      campaignId: candidate.campaignId,
+      targetId: candidate.targetId,
+      designation: candidate.designation,
+      periodDays: candidate.periodDays,
+    },
     windows: proposed,
     leftOutNearSun: nearSun,
     cautions: [NOT_CONFIRMED, SUN_CAUTION],

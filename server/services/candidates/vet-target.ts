@@ -1,9 +1,10 @@
 import { findCampaignById } from '../../db/campaigns';
 import { dipsOfTarget } from '../../db/candidates';
 import type { Db } from '../../db/knex';
-import { latestPeriodSearch } from '../../db/period-searches';
+import { latestPeriodSearch, targetSeries } from '../../db/period-searches';
 import { findTargetById } from '../../db/targets';
 import { AppError, notFound } from '../../errors';
+import { fitTransitShape } from '../../science/transit-shape';
 import { derivedParameters, type TransitMeasurement, vettingDiagnostics } from '../../science/vetting';
 
 interface DiagnosticsSummary {
@@ -35,11 +36,13 @@ export async function vetTarget(db: Db, targetId: number) {
   };
   const search = await latestPeriodSearch(db, target.id);
   let transit: TransitMeasurement | null = null;
+  let t0Days: number | null = null;
   let source: 'period-search' | 'dip' = 'period-search';
   if (search?.status === 'done' && search.result?.best) {
     const best = search.result.best as Record<string, number>;
     const atBest = ((search.result.diagnostics as { atBest?: DiagnosticsSummary } | null)?.atBest ??
       {}) as DiagnosticsSummary;
+    t0Days = best.t0Days ?? null;
     transit = {
       periodDays: best.periodDays!,
       depthPpm: best.depthPpm!,
@@ -56,9 +59,12 @@ export async function vetTarget(db: Db, targetId: number) {
       .sort((a, b) => (b.snr ?? 0) - (a.snr ?? 0))[0];
     if (strongest) {
       source = 'dip';
+      t0Days = strongest.timeCenter;
       transit = {
         periodDays: null,
         depthPpm: strongest.depthPpm!,
+        // The dip's SNR is depth / σ_depth (measure-dip.ts), so its depth error follows from it.
+        depthErrPpm: strongest.depthPpm! / strongest.snr!,
         durationHours: strongest.durationHours!,
         snr: strongest.snr!,
       };
@@ -70,6 +76,19 @@ export async function vetTarget(db: Db, targetId: number) {
       'This target has no finished period search and no measured dip yet',
       'conflict',
     );
+  }
+  if (t0Days !== null) {
+    // The light curve's own days, as the search's t0 and the dips' times are.
+    const series = await targetSeries(db, target.id);
+    transit.shape = series
+      ? fitTransitShape({
+          timeDays: series.timeDays,
+          flux: series.flux,
+          periodDays: transit.periodDays,
+          t0Days,
+          durationHours: transit.durationHours,
+        })
+      : null;
   }
   return {
     vetting: {

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
+import { detrendBiweight } from '../../../../server/science/detrend';
 import { generateSurvey } from '../../../../server/science/synthetic-survey';
+import { fitTransitShape } from '../../../../server/science/transit-shape';
 import {
   derivedParameters,
   transitProbabilityStatement,
@@ -13,6 +15,19 @@ const star = (target: (typeof survey.targets)[number]) => ({
   massMsun: target.stellarMassMsun,
   teffK: target.effectiveTemperatureK,
 });
+/** The trapezoid fitted to the light curve as ingestion leaves it (biweight-detrended, 1-day window). */
+const shapeOf = (
+  target: (typeof survey.targets)[number],
+  periodDays: number,
+  t0Days: number,
+  durationHours: number,
+) => {
+  const { timeDays, flux } = target.lightCurve;
+  const { detrended } = detrendBiweight(timeDays, flux, {
+    windowDays: Math.max(1, (3 * durationHours) / 24),
+  });
+  return fitTransitShape({ timeDays, flux: detrended, periodDays, t0Days, durationHours });
+};
 
 describe('vetting diagnostics on the synthetic survey', () => {
   it('pass its planets', () => {
@@ -30,6 +45,7 @@ describe('vetting diagnostics on the synthetic survey', () => {
           oddEvenDifferenceSigma: 0.4,
           depthSecondaryPpm: 0,
           depthSecondaryErrPpm: planet.depthPpm / planet.expectedSnr,
+          shape: shapeOf(target, planet.periodDays, planet.t0Days, planet.durationHours),
         },
         star(target),
       );
@@ -38,9 +54,10 @@ describe('vetting diagnostics on the synthetic survey', () => {
     }
   });
 
-  it('warn on its eclipsing binaries (their secondary eclipse, and mostly their size)', () => {
+  it('warn on its eclipsing binaries (their secondary eclipse, their V shape, and mostly their size)', () => {
     const binaries = survey.targets.filter((target) => target.truth.binary);
     expect(binaries.length).toBeGreaterThan(0);
+    let clear = 0;
     for (const target of binaries) {
       const binary = target.truth.binary!;
       const noise = target.truth.noisePpmPerHour / Math.sqrt(binary.durationHours);
@@ -53,12 +70,19 @@ describe('vetting diagnostics on the synthetic survey', () => {
           oddEvenDifferenceSigma: 0.5,
           depthSecondaryPpm: binary.secondaryDepthPpm,
           depthSecondaryErrPpm: noise,
+          shape: shapeOf(target, binary.periodDays, binary.t0Days, binary.durationHours),
         },
         star(target),
       );
       const warned = diagnostics.filter((d) => d.verdict === 'warn').map((d) => d.code);
       expect(warned.length, `${target.designation}: ${JSON.stringify(diagnostics)}`).toBeGreaterThan(0);
+      // The generator's eclipses are grazing (b > 1 − k), so every one seen clearly enough is a V.
+      if (binary.primaryDepthPpm / noise >= 10) {
+        clear += 1;
+        expect(warned, `${target.designation}: ${JSON.stringify(diagnostics)}`).toContain('shape');
+      }
     }
+    expect(clear).toBeGreaterThan(0);
   });
 });
 
@@ -90,5 +114,37 @@ describe('derived parameters', () => {
     expect(transitProbabilityStatement(0.1)).toBe(
       'The chance that such an orbit transits from our view is 10 %: for each such planet seen transiting, about 9 more exist around stars like this that do not transit from our view.',
     );
+  });
+});
+
+describe('the V-shape diagnostic', () => {
+  const transit = { periodDays: 3, depthPpm: 5_000, durationHours: 2.5, snr: 40 };
+  const sunLike = { radiusRsun: 1, massMsun: 1, teffK: 5772 };
+  const shape = {
+    depthPpm: 5_000,
+    totalDurationHours: 2.5,
+    ingressHours: 1.1,
+    flatShare: 0.12,
+    chiSquare: 1_000,
+    flatChiSquare: 1_050,
+    pointsInTransit: 300,
+  };
+  const verdict = (fit: typeof shape | null | undefined) =>
+    vettingDiagnostics({ ...transit, shape: fit }, sunLike).find((d) => d.code === 'shape');
+
+  it('warns on a V that a flat bottom fits clearly worse, and passes one it does not', () => {
+    expect(verdict(shape)).toMatchObject({ verdict: 'warn', value: 0.12 });
+    expect(verdict(shape)!.detail).toMatch(/V-shaped.*Δχ² = 50/);
+    // Δχ² of 5 is under the 3σ bar of 9: the data do not prefer the V enough to warn.
+    expect(verdict({ ...shape, flatChiSquare: 1_005 })!.verdict).toBe('pass');
+    expect(verdict({ ...shape, flatShare: 0.6, flatChiSquare: 1_000 })).toMatchObject({
+      verdict: 'pass',
+      value: 0.6,
+    });
+  });
+
+  it('warns that it cannot tell when the fit could not be made, and is left out when not fitted', () => {
+    expect(verdict(null)).toMatchObject({ verdict: 'warn', value: null });
+    expect(verdict(undefined)).toBeUndefined();
   });
 });
