@@ -43,6 +43,8 @@ export const RESCORE_BATCH = 200;
 // A mark's weight in the dip time: the volunteer's dip weight, never below a small floor so that a
 // newcomer's mark still counts a little.
 const MARK_WEIGHT_FLOOR = 0.05;
+/** The shortest dip duration measured (hours): our own choice, about three 10-minute cadences. */
+const SHORTEST_DIP_HOURS = 0.5;
 
 /**
  * Rescores every snippet of the campaign marked `needs_rescore`, batch by batch, until none is left —
@@ -263,7 +265,13 @@ async function saveDips(
   }
   const dips: DipToSave[] = centres.map((cluster, index) => {
     const measured = series
-      ? measureDip(series, cluster.center, { maxDurationHours: settings.longestTransitHours })
+      ? measureDip(series, cluster.center, {
+          maxDurationHours: settings.longestTransitHours,
+          // Down to half an hour: hot Jupiters around small stars transit for about an hour, and the
+          // default (an eighth of the longest, 1.5 h for 12 h) would stretch them all to 1.5 h.
+          minDurationHours: Math.min(SHORTEST_DIP_HOURS, settings.longestTransitHours),
+          durationCount: 14,
+        })
       : null;
     return {
       clusterIndex: index,
