@@ -1,6 +1,7 @@
 import { hashPassword } from '../server/auth/password';
 import type { Role } from '../server/auth/roles';
 import type { Db } from '../server/db/knex';
+import { insertObservatory } from '../server/db/observatories';
 import { insertPerson, type PersonRow } from '../server/db/people';
 import { reestimateCampaign } from '../server/services/consensus/reestimate-campaign';
 import { seedDemoCrowd } from './demo-crowd';
@@ -32,6 +33,13 @@ export const DEMO_CAMPAIGN = {
     'Twenty-seven days of brightness measurements for a few hundred stars. Swipe right when you see a dip, left when the star stays flat; tap where the dip is deepest.',
 };
 
+/** Three invented observatories, one per latitude band, so that transit windows have somewhere to be watched from. */
+export const DEMO_OBSERVATORIES = [
+  { name: 'Larkspur Ridge 1.0 m', latitudeDeg: 31.9583, longitudeDeg: -111.5967, elevationM: 2096 },
+  { name: 'Quillan Hill 0.6 m', latitudeDeg: -30.1691, longitudeDeg: -70.8063, elevationM: 2207 },
+  { name: 'Fenmoor roof 0.3 m', latitudeDeg: 52.2053, longitudeDeg: 0.1218, elevationM: 20 },
+].map((observatory) => ({ ...observatory, minTargetAltitudeDeg: 30, sunAltitudeLimitDeg: -12 }));
+
 export async function seedDemo(db: Db, options: { targets: number } = { targets: 240 }): Promise<void> {
   // Hashes in parallel (each costs ~0.6 s), rows in a fixed order so that ids are the same every time.
   const hashes = await Promise.all(DEMO_ACCOUNTS.map(() => hashPassword(DEMO_PASSWORD)));
@@ -53,4 +61,7 @@ export async function seedDemo(db: Db, options: { targets: number } = { targets:
   await seedDemoCrowd(db, { campaignId, targets: survey.targets, passwordHash: hashes[0]! });
   // What the consensus jobs would have made of the crowd's verdicts by now.
   await reestimateCampaign(db, campaignId);
+  for (const observatory of DEMO_OBSERVATORIES) {
+    await insertObservatory(db, { ...observatory, createdBy: scientist?.id ?? people[0]!.id });
+  }
 }
