@@ -40,10 +40,27 @@ const targetSnippetSchema = z.object({
 
 export type TargetSnippet = z.infer<typeof targetSnippetSchema>;
 
+/** A settled dip volunteers found: times in the light curve's own days, like its series. */
+const targetDipSchema = z.object({
+  id: z.number().int(),
+  snippetId: z.number().int(),
+  timeCenter: z.number(),
+  timeSigma: z.number().nullable(),
+  depthPpm: z.number().nullable(),
+  durationHours: z.number().nullable(),
+  snr: z.number().nullable(),
+  consensusScore: z.number().nullable(),
+});
+
+export type TargetDip = z.infer<typeof targetDipSchema>;
+
 const targetDetailSchema = z.object({
   target: targetSchema.extend({ campaignId: z.number().int() }),
   lightCurves: z.array(lightCurveSchema),
   snippets: z.array(targetSnippetSchema),
+  dips: z.array(targetDipSchema),
+  /** The candidate this target became on the follow-up list, null while it is not one. */
+  candidateId: z.number().int().nullable(),
 });
 
 export type TargetDetail = z.infer<typeof targetDetailSchema>;

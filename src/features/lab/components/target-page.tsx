@@ -2,7 +2,7 @@ import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Alert } from '@/components/alert';
 import { Badge } from '@/components/badge';
-import { Button, ButtonLink } from '@/components/button';
+import { Button, ButtonLink, buttonClasses } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorBoundary } from '@/components/error-boundary';
 import { LightCurvePlot, type PlotBand, type PlotMarker } from '@/components/light-curve-plot';
@@ -12,8 +12,15 @@ import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
 import { paths } from '@/config/paths';
 import { isApiError } from '@/lib/api-client';
 import { fluxToPpm } from '@/lib/light-curve';
-import { type TargetDetail, type TargetLightCurve, type TargetSnippet, useTarget } from '../api/get-target';
-import { formatCount } from '../lib/format';
+import {
+  type TargetDetail,
+  type TargetDip,
+  type TargetLightCurve,
+  type TargetSnippet,
+  useTarget,
+} from '../api/get-target';
+import { formatCount, plural } from '../lib/format';
+import type { SeriesPart } from '../lib/period-search';
 import {
   formatDays,
   formatScore,
@@ -24,6 +31,10 @@ import {
   snippetStateTones,
 } from '../lib/snippets';
 import { fieldLabel, formatDec, formatNumber, formatRa } from '../lib/targets';
+import { DipsTable } from './target-review/dips-table';
+import { PeriodSearchSection } from './target-review/period-search-section';
+import { PromotionSection } from './target-review/promotion-section';
+import { VettingSection } from './target-review/vetting-section';
 
 export function TargetPage({ targetId }: { targetId: number }) {
   const target = useTarget(targetId);
@@ -51,8 +62,19 @@ export function TargetPage({ targetId }: { targetId: number }) {
 }
 
 function TargetView({ detail }: { detail: TargetDetail }) {
-  const { target, lightCurves, snippets } = detail;
+  const { target, lightCurves, snippets, dips, candidateId } = detail;
   const [hovered, setHovered] = useState<number | null>(null);
+  // The period search folds what it searched: the target's light curves other than quiet references.
+  const parts = useMemo<SeriesPart[]>(
+    () =>
+      lightCurves
+        .filter((lightCurve) => !lightCurve.isQuietReference)
+        .map((lightCurve) => ({
+          timeDays: lightCurve.series.timeDays,
+          fluxPpm: fluxToPpm(lightCurve.series.flux),
+        })),
+    [lightCurves],
+  );
 
   return (
     <div className="flex flex-col gap-10">
@@ -66,14 +88,23 @@ function TargetView({ detail }: { detail: TargetDetail }) {
         <PageHeader
           eyebrow={`Target · #${target.id}`}
           title={target.designation}
-          description={`${lightCurves.length === 1 ? 'One light curve' : `${formatCount(lightCurves.length)} light curves`} and ${formatCount(snippets.length)} snippets. Planted transits are marked: this page is for staff only.`}
+          description={`${lightCurves.length === 1 ? 'One light curve' : `${formatCount(lightCurves.length)} light curves`}, ${plural(dips.length, 'settled dip')} and ${formatCount(snippets.length)} snippets. Planted transits are marked: this page is for staff only.`}
           actions={
-            <ButtonLink
-              variant="secondary"
-              to={paths.labSnippets.getHref(target.campaignId, { target: target.designation })}
-            >
-              Its snippets in the browser
-            </ButtonLink>
+            <>
+              {candidateId === null ? (
+                <a href="#promotion" className={buttonClasses('primary')}>
+                  Promote…
+                </a>
+              ) : (
+                <ButtonLink to={paths.labCandidate.getHref(candidateId)}>Candidate #{candidateId}</ButtonLink>
+              )}
+              <ButtonLink
+                variant="secondary"
+                to={paths.labSnippets.getHref(target.campaignId, { target: target.designation })}
+              >
+                Its snippets in the browser
+              </ButtonLink>
+            </>
           }
         />
       </div>
@@ -98,11 +129,37 @@ function TargetView({ detail }: { detail: TargetDetail }) {
               index={index}
               designation={target.designation}
               snippets={snippets}
+              dips={dips}
               hovered={hovered}
             />
           ))
         )}
       </section>
+
+      <section aria-labelledby="dips-heading" className="flex flex-col gap-4">
+        <div className="flex flex-col gap-1">
+          <h2 id="dips-heading" className="text-xl font-semibold text-ink">
+            Dips
+          </h2>
+          <p className="max-w-2xl text-base text-muted">
+            The settled dips volunteers found, each drawn as a dark line on the light curve. Point at one to
+            find its snippet’s band.
+          </p>
+        </div>
+        <DipsTable dips={dips} hoveredSnippet={hovered} onHoverSnippet={setHovered} />
+      </section>
+
+      <PeriodSearchSection targetId={target.id} designation={target.designation} parts={parts} />
+
+      <VettingSection targetId={target.id} />
+
+      <PromotionSection
+        campaignId={target.campaignId}
+        targetId={target.id}
+        designation={target.designation}
+        dips={dips}
+        candidateId={candidateId}
+      />
 
       <section aria-labelledby="target-snippets-heading" className="flex flex-col gap-4">
         <div className="flex flex-col gap-1">
@@ -191,10 +248,18 @@ interface LightCurveSectionProps {
   index: number;
   designation: string;
   snippets: readonly TargetSnippet[];
+  dips: readonly TargetDip[];
   hovered: number | null;
 }
 
-function LightCurveSection({ lightCurve, index, designation, snippets, hovered }: LightCurveSectionProps) {
+function LightCurveSection({
+  lightCurve,
+  index,
+  designation,
+  snippets,
+  dips,
+  hovered,
+}: LightCurveSectionProps) {
   const x = lightCurve.series.timeDays;
   const y = useMemo(() => fluxToPpm(lightCurve.series.flux), [lightCurve.series.flux]);
   const own = useMemo(() => snippetsOf(lightCurve, snippets), [lightCurve, snippets]);
@@ -228,6 +293,16 @@ function LightCurveSection({ lightCurve, index, designation, snippets, hovered }
       }),
     [own],
   );
+  const ownDips = useMemo(
+    () =>
+      dips.filter((dip) => dip.timeCenter >= lightCurve.timeStart && dip.timeCenter <= lightCurve.timeEnd),
+    [dips, lightCurve],
+  );
+  // Dips are drawn as solid ink lines, so they never read as the amber dashed marks of planted transits.
+  const allMarkers = useMemo<PlotMarker[]>(
+    () => [...markers, ...ownDips.map((dip) => ({ x: dip.timeCenter, tone: 'ink' as const }))],
+    [markers, ownDips],
+  );
   const hoveredPlanted = own.find((snippet) => snippet.id === hovered && snippet.kind === 'planted');
   const highlighted = useMemo<PlotBand[]>(
     () =>
@@ -255,6 +330,7 @@ function LightCurveSection({ lightCurve, index, designation, snippets, hovered }
         <span className="flex flex-wrap gap-2">
           {lightCurve.isQuietReference ? <Badge tone="slate">Quiet reference</Badge> : null}
           <Badge tone="slate">{own.filter((snippet) => snippet.kind !== 'planted').length} windows</Badge>
+          {ownDips.length > 0 ? <Badge tone="slate">{plural(ownDips.length, 'dip')}</Badge> : null}
           {markers.length > 0 ? <Badge tone="amber">{markers.length} planted</Badge> : null}
         </span>
       </div>
@@ -278,10 +354,12 @@ function LightCurveSection({ lightCurve, index, designation, snippets, hovered }
             height={320}
             zoomable
             bands={highlighted}
-            markers={markers}
+            markers={allMarkers}
             label={`Light curve of ${designation}: ${formatCount(lightCurve.pointCount)} points over ${spanDays.toFixed(1)} days, ${bands.length} snippet windows shaded${
-              markers.length ? `, ${markers.length} planted transits marked` : ''
-            }`}
+              ownDips.length
+                ? `, dips at ${ownDips.map((dip) => dip.timeCenter.toFixed(3)).join(', ')} days drawn as lines`
+                : ''
+            }${markers.length ? `, ${markers.length} planted transits marked` : ''}`}
           />
         ) : (
           <p className="text-sm text-muted">The stored light curve has no points to draw.</p>
@@ -325,6 +403,10 @@ function Legend() {
           {item.text}
         </li>
       ))}
+      <li className="flex items-center gap-2">
+        <span aria-hidden="true" className="h-3 w-0.5 bg-ink" />
+        dip volunteers found (settled), at its centre
+      </li>
       <li className="flex items-center gap-2">
         <svg aria-hidden="true" viewBox="0 0 12 12" className="size-3 fill-amber">
           <path d="M0 0h12L6 10z" />
