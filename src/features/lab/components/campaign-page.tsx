@@ -179,9 +179,17 @@ function CampaignCounts({ campaign }: { campaign: Campaign }) {
         <h2 id="campaign-counts-heading" className="text-xl font-semibold text-ink">
           In numbers
         </h2>
-        <ButtonLink variant="secondary" to={paths.labSnippets.getHref(campaign.id)}>
-          Browse {formatCount(total)} snippets
-        </ButtonLink>
+        <div className="flex flex-wrap gap-3">
+          <ButtonLink variant="secondary" to={paths.labSnippets.getHref(campaign.id)}>
+            Browse {formatCount(total)} snippets
+          </ButtonLink>
+          <ButtonLink variant="secondary" to={paths.labCandidateReview.getHref(campaign.id)}>
+            Candidate review
+          </ButtonLink>
+          <ButtonLink variant="secondary" to={paths.labFollowUp.getHref(campaign.id)}>
+            Follow-up list
+          </ButtonLink>
+        </div>
       </div>
       <dl className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-6">
         {items.map((item) => (
