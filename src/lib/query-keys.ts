@@ -111,6 +111,7 @@ export const queryKeys = {
     all: () => ['candidates'] as const,
     dipTargets: (campaignId: number) => ['candidates', { campaignId, part: 'dip-targets' }] as const,
     ofCampaign: (campaignId: number) => ['candidates', { campaignId }] as const,
+    detail: (candidateId: number) => ['candidates', { candidateId }] as const,
     windows: (candidateId: number, count: number) => ['candidates', { candidateId, count }] as const,
   },
   observatories: {

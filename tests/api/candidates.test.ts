@@ -131,6 +131,22 @@ describe('the follow-up list', () => {
     expect((await browser.patch(`/api/candidates/${candidate.id}`, { state: 'confirmed' })).status).toBe(400);
     expect((await browser.patch(`/api/candidates/${candidate.id}`, {})).status).toBe(400);
     expect((await browser.patch('/api/candidates/999999', { state: 'observed' })).status).toBe(404);
+
+    // One candidate on its own: what the list holds, with its credits and the caution.
+    const one = await browser.get(`/api/candidates/${candidate.id}`);
+    expect(one.status).toBe(200);
+    expect(one.body.candidate).toMatchObject({
+      id: candidate.id,
+      state: 'resolved',
+      disposition: 'eclipsing binary',
+      dipIds: candidate.dipIds,
+      credits: candidate.credits,
+    });
+    expect(one.body.candidate.caution).toMatch(/not a confirmed planet/);
+    expect((await browser.get('/api/candidates/999999')).status).toBe(404);
+    expect((await browser.get('/api/candidates/abc')).status).toBe(400);
+    const volunteer = (await signedIn(test, 'volunteer')).browser;
+    expect((await volunteer.get(`/api/candidates/${candidate.id}`)).status).toBe(403);
   });
 
   it('refuses dips of another target, targets of another campaign, and volunteers', async () => {

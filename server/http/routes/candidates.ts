@@ -3,6 +3,7 @@ import { CANDIDATE_STATES, DISPOSITIONS } from '../../db/candidates';
 import {
   campaignCandidates,
   campaignDipTargets,
+  candidateDetail,
   changeCandidate,
   promoteCandidate,
 } from '../../services/candidates/manage-candidates';
@@ -63,6 +64,14 @@ export const candidateRoutes = (deps: AppDeps) => [
     summary: 'The campaign’s follow-up list, highest priority first, with the volunteers credited',
     params: idParams,
     handle: ({ params }) => campaignCandidates(deps.db, params.id),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/candidates/:id',
+    access: 'scientist',
+    summary: 'One candidate: its ephemeris, state, disposition, notes, dips and the volunteers credited',
+    params: idParams,
+    handle: ({ params }) => candidateDetail(deps.db, params.id),
   }),
   defineRoute({
     method: 'patch',

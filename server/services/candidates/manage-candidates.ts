@@ -194,6 +194,13 @@ export interface CandidateChange {
   notes?: string | null | undefined;
 }
 
+/** One candidate with its ephemeris, dips and credits. */
+export async function candidateDetail(db: Db, candidateId: number) {
+  const candidate = await findCandidate(db, candidateId);
+  if (!candidate) throw notFound('Candidate');
+  return { candidate: await candidateView(db, candidate) };
+}
+
 /** Moves a candidate through its states or sets its disposition; on the audit log with before and after. */
 export async function changeCandidate(
   db: Db,

@@ -31,9 +31,8 @@ const transitWindowSchema = z.object({
 const candidateWindowsSchema = z.object({
   candidate: z.object({
     id: z.number().int(),
-    // Older servers did not send these; the page then goes without the campaign's details.
-    campaignId: z.number().int().optional(),
-    targetId: z.number().int().optional(),
+    campaignId: z.number().int(),
+    targetId: z.number().int(),
     designation: z.string(),
     periodDays: z.number().nullable(),
   }),

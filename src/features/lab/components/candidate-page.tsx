@@ -10,13 +10,13 @@ import { PageHeader } from '@/components/page-header';
 import { Select } from '@/components/select';
 import { paths } from '@/config/paths';
 import { isApiError } from '@/lib/api-client';
+import { type CandidateDetail, useCandidate } from '../api/get-candidate';
 import {
   type CandidateWindows,
   useCandidateWindows,
   WINDOW_COUNTS,
   type WindowCount,
 } from '../api/get-candidate-windows';
-import { useCandidates } from '../api/get-candidates';
 import {
   candidateStateLabels,
   candidateStateTones,
@@ -36,14 +36,13 @@ import { WindowsList } from './follow-up/windows-list';
 
 type View = 'list' | 'calendar';
 
-/** One candidate: its next transit windows, as a list or a calendar, and who can watch each. */
+/** One candidate: its ephemeris and state, and its next transit windows as a list or a calendar. */
 export function CandidatePage({ candidateId }: { candidateId: number }) {
-  const [count, setCount] = useState<WindowCount>(10);
-  const windows = useCandidateWindows(candidateId, count);
+  const candidate = useCandidate(candidateId);
 
-  if (windows.isPending) return <Loading label="Loading the transit windows…" />;
-  if (windows.isError) {
-    const error = windows.error;
+  if (candidate.isPending) return <Loading label="Loading the candidate…" />;
+  if (candidate.isError) {
+    const error = candidate.error;
     if (isApiError(error) && error.status === 404) {
       return (
         <EmptyState
@@ -54,88 +53,26 @@ export function CandidatePage({ candidateId }: { candidateId: number }) {
         </EmptyState>
       );
     }
-    if (isApiError(error) && error.code === 'no_ephemeris') {
-      return (
-        <NoWindows candidateId={candidateId} title="No period yet, so no transit windows">
-          <p>
-            This candidate has a single transit and no period, so the next transits cannot be predicted. Run a
-            period search on the target’s review page once more dips are settled, then promote it again.
-          </p>
-          <p className="mt-2 text-sm">The server said: {error.message}</p>
-        </NoWindows>
-      );
-    }
-    if (isApiError(error) && error.code === 'no_position') {
-      return (
-        <NoWindows candidateId={candidateId} title="No sky position, so no observability">
-          <p>
-            The target has no right ascension and declination in the catalogue, so its transits cannot be
-            placed in the sky. Add them to the catalogue and upload it again.
-          </p>
-        </NoWindows>
-      );
-    }
     return (
-      <Alert tone="danger" title="Could not load the transit windows">
+      <Alert tone="danger" title="Could not load the candidate">
         <p>{isApiError(error) ? error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => windows.refetch()}>
+        <Button variant="secondary" className="mt-2" onClick={() => candidate.refetch()}>
           Try again
         </Button>
       </Alert>
     );
   }
-  return (
-    <CandidateView
-      answer={windows.data}
-      count={count}
-      onCount={setCount}
-      refreshing={windows.isPlaceholderData}
-    />
-  );
+  return <CandidateView candidate={candidate.data} />;
 }
 
-function NoWindows({
-  candidateId,
-  title,
-  children,
-}: {
-  candidateId: number;
-  title: string;
-  children: ReactNode;
-}) {
-  return (
-    <div className="flex flex-col gap-6">
-      <PageHeader eyebrow={`Candidate · #${candidateId}`} title="Transit windows" />
-      <Alert tone="note" title={title}>
-        {children}
-      </Alert>
-      <p className="text-sm text-muted">A candidate is not a confirmed planet.</p>
-    </div>
-  );
-}
-
-function CandidateView({
-  answer,
-  count,
-  onCount,
-  refreshing,
-}: {
-  answer: CandidateWindows;
-  count: WindowCount;
-  onCount: (count: WindowCount) => void;
-  refreshing: boolean;
-}) {
-  const { candidate, windows, leftOutNearSun, cautions } = answer;
-  const [view, setView] = useState<View>('list');
-  const countId = useId();
-  const noObservatories = windows.length > 0 && windows.every((window) => window.observatories.length === 0);
+function CandidateView({ candidate }: { candidate: CandidateDetail }) {
+  const [count, setCount] = useState<WindowCount>(10);
+  const windows = useCandidateWindows(candidate.id, count);
 
   return (
     <div className="flex flex-col gap-8">
       <div className="flex flex-col gap-4">
-        {candidate.campaignId !== undefined ? (
-          <BackLink to={paths.labFollowUp.getHref(candidate.campaignId)}>The follow-up list</BackLink>
-        ) : null}
+        <BackLink to={paths.labFollowUp.getHref(candidate.campaignId)}>The follow-up list</BackLink>
         <PageHeader
           eyebrow={`Candidate · #${candidate.id}`}
           title={candidate.designation}
@@ -146,103 +83,186 @@ function CandidateView({
             </p>
           }
           actions={
-            candidate.targetId !== undefined ? (
-              <ButtonLink variant="secondary" to={paths.labTarget.getHref(candidate.targetId)}>
-                The target’s review
-              </ButtonLink>
-            ) : null
+            <ButtonLink variant="secondary" to={paths.labTarget.getHref(candidate.targetId)}>
+              The target’s review
+            </ButtonLink>
           }
         />
       </div>
 
-      <CandidateCaution cautions={cautions} />
+      <CandidateCaution cautions={windows.data?.cautions ?? [candidate.caution]} />
 
-      {candidate.campaignId !== undefined ? (
-        <CandidateDetails campaignId={candidate.campaignId} candidateId={candidate.id} />
-      ) : null}
+      <CandidateDetails candidate={candidate} />
 
-      <section aria-labelledby="windows-heading" className="flex flex-col gap-4">
-        <div className="flex flex-col gap-3 md:flex-row md:items-end md:justify-between">
-          <div className="flex flex-col gap-1">
-            <h2 id="windows-heading" className="text-xl font-semibold text-ink">
-              Next {plural(windows.length, 'transit window')}
-            </h2>
-            <p className="max-w-2xl text-base text-muted">
-              Period {formatFixed(candidate.periodDays, 6, 'd')}. The mid-transit uncertainty grows with each
-              epoch as the period’s error adds up
-              {windows.length > 1
-                ? `: ${formatSigmaMinutes(windows[0]!.sigmaDays)} for the first window, ${formatSigmaMinutes(windows[windows.length - 1]!.sigmaDays)} for the last`
-                : ''}
-              .
-            </p>
-          </div>
-          <div className="flex flex-wrap items-end gap-3">
-            <div className="flex flex-col gap-1.5">
-              <label htmlFor={countId} className="text-sm font-medium text-ink">
-                Windows to show
-              </label>
-              <Select
-                id={countId}
-                value={count}
-                onChange={(event) => onCount(Number(event.target.value) as WindowCount)}
-              >
-                {WINDOW_COUNTS.map((value) => (
-                  <option key={value} value={value}>
-                    {value}
-                  </option>
-                ))}
-              </Select>
-            </div>
-            <ViewToggle view={view} onView={setView} />
-          </div>
+      <TransitWindowsSection candidateId={candidate.id} windows={windows} count={count} onCount={setCount} />
+    </div>
+  );
+}
+
+function TransitWindowsSection({
+  candidateId,
+  windows: query,
+  count,
+  onCount,
+}: {
+  candidateId: number;
+  windows: ReturnType<typeof useCandidateWindows>;
+  count: WindowCount;
+  onCount: (count: WindowCount) => void;
+}) {
+  if (query.isPending) return <Loading label="Loading the transit windows…" />;
+  if (query.isError) {
+    const error = query.error;
+    if (isApiError(error) && error.code === 'no_ephemeris') {
+      return (
+        <NoWindows title="No period yet, so no transit windows">
+          <p>
+            This candidate has a single transit and no period, so the next transits cannot be predicted. Run a
+            period search on the target’s review page once more dips are settled, then promote it again.
+          </p>
+          <p className="mt-2 text-sm">The server said: {error.message}</p>
+        </NoWindows>
+      );
+    }
+    if (isApiError(error) && error.code === 'no_position') {
+      return (
+        <NoWindows title="No sky position, so no observability">
+          <p>
+            The target has no right ascension and declination in the catalogue, so its transits cannot be
+            placed in the sky. Add them to the catalogue and upload it again.
+          </p>
+        </NoWindows>
+      );
+    }
+    return (
+      <Alert tone="danger" title={`Could not load the transit windows of candidate #${candidateId}`}>
+        <p>{isApiError(error) ? error.message : 'Something went wrong.'}</p>
+        <Button variant="secondary" className="mt-2" onClick={() => query.refetch()}>
+          Try again
+        </Button>
+      </Alert>
+    );
+  }
+  return (
+    <WindowsSection
+      answer={query.data}
+      count={count}
+      onCount={onCount}
+      refreshing={query.isPlaceholderData}
+    />
+  );
+}
+
+function NoWindows({ title, children }: { title: string; children: ReactNode }) {
+  return (
+    <section aria-labelledby="windows-heading" className="flex flex-col gap-4">
+      <h2 id="windows-heading" className="text-xl font-semibold text-ink">
+        Transit windows
+      </h2>
+      <Alert tone="note" title={title}>
+        {children}
+      </Alert>
+    </section>
+  );
+}
+
+function WindowsSection({
+  answer,
+  count,
+  onCount,
+  refreshing,
+}: {
+  answer: CandidateWindows;
+  count: WindowCount;
+  onCount: (count: WindowCount) => void;
+  refreshing: boolean;
+}) {
+  const { candidate, windows, leftOutNearSun } = answer;
+  const [view, setView] = useState<View>('list');
+  const countId = useId();
+  const noObservatories = windows.length > 0 && windows.every((window) => window.observatories.length === 0);
+
+  return (
+    <section aria-labelledby="windows-heading" className="flex flex-col gap-4">
+      <div className="flex flex-col gap-3 md:flex-row md:items-end md:justify-between">
+        <div className="flex flex-col gap-1">
+          <h2 id="windows-heading" className="text-xl font-semibold text-ink">
+            Next {plural(windows.length, 'transit window')}
+          </h2>
+          <p className="max-w-2xl text-base text-muted">
+            Period {formatFixed(candidate.periodDays, 6, 'd')}. The mid-transit uncertainty grows with each
+            epoch as the period’s error adds up
+            {windows.length > 1
+              ? `: ${formatSigmaMinutes(windows[0]!.sigmaDays)} for the first window, ${formatSigmaMinutes(windows[windows.length - 1]!.sigmaDays)} for the last`
+              : ''}
+            .
+          </p>
         </div>
-
-        <div aria-live="polite" className="flex flex-col gap-3 empty:hidden">
-          {refreshing ? <Loading label="Loading more windows…" /> : null}
-          {leftOutNearSun > 0 ? (
-            <Alert tone="note" title={`${plural(leftOutNearSun, 'window')} left out near the Sun`}>
-              The target is within 30° of the Sun at{' '}
-              {leftOutNearSun === 1 ? 'that transit' : 'those transits'}, so{' '}
-              {leftOutNearSun === 1 ? 'it is' : 'they are'} never proposed.
-            </Alert>
-          ) : null}
-        </div>
-
-        {noObservatories ? (
-          <Alert tone="note" title="No observatories yet">
-            Windows are checked against each observatory’s horizon, Sun limit and lowest target altitude.{' '}
-            <Link
-              to={paths.labObservatories.getHref()}
-              className="font-medium text-ink underline decoration-line decoration-2 underline-offset-4 hover:decoration-amber"
+        <div className="flex flex-wrap items-end gap-3">
+          <div className="flex flex-col gap-1.5">
+            <label htmlFor={countId} className="text-sm font-medium text-ink">
+              Windows to show
+            </label>
+            <Select
+              id={countId}
+              value={count}
+              onChange={(event) => onCount(Number(event.target.value) as WindowCount)}
             >
-              Add an observatory
-            </Link>{' '}
-            to see which windows can be watched.
+              {WINDOW_COUNTS.map((value) => (
+                <option key={value} value={value}>
+                  {value}
+                </option>
+              ))}
+            </Select>
+          </div>
+          <ViewToggle view={view} onView={setView} />
+        </div>
+      </div>
+
+      <div aria-live="polite" className="flex flex-col gap-3 empty:hidden">
+        {refreshing ? <Loading label="Loading more windows…" /> : null}
+        {leftOutNearSun > 0 ? (
+          <Alert tone="note" title={`${plural(leftOutNearSun, 'window')} left out near the Sun`}>
+            The target is within 30° of the Sun at {leftOutNearSun === 1 ? 'that transit' : 'those transits'},
+            so {leftOutNearSun === 1 ? 'it is' : 'they are'} never proposed.
           </Alert>
         ) : null}
+      </div>
 
-        <ErrorBoundary
-          fallback={(_error, reset) => (
-            <Alert tone="danger" title="The transit windows could not be shown">
-              <Button variant="secondary" className="mt-2" onClick={reset}>
-                Try again
-              </Button>
-            </Alert>
-          )}
-        >
-          {windows.length === 0 ? (
-            <p className="rounded-lg border border-dashed border-edge bg-surface px-4 py-5 text-base text-muted">
-              No window to propose: every transit in this range has the target too near the Sun. Ask for more
-              windows to look further ahead.
-            </p>
-          ) : view === 'list' ? (
-            <WindowsList windows={windows} />
-          ) : (
-            <WindowsCalendar windows={windows} />
-          )}
-        </ErrorBoundary>
-      </section>
-    </div>
+      {noObservatories ? (
+        <Alert tone="note" title="No observatories yet">
+          Windows are checked against each observatory’s horizon, Sun limit and lowest target altitude.{' '}
+          <Link
+            to={paths.labObservatories.getHref()}
+            className="font-medium text-ink underline decoration-line decoration-2 underline-offset-4 hover:decoration-amber"
+          >
+            Add an observatory
+          </Link>{' '}
+          to see which windows can be watched.
+        </Alert>
+      ) : null}
+
+      <ErrorBoundary
+        fallback={(_error, reset) => (
+          <Alert tone="danger" title="The transit windows could not be shown">
+            <Button variant="secondary" className="mt-2" onClick={reset}>
+              Try again
+            </Button>
+          </Alert>
+        )}
+      >
+        {windows.length === 0 ? (
+          <p className="rounded-lg border border-dashed border-edge bg-surface px-4 py-5 text-base text-muted">
+            No window to propose: every transit in this range has the target too near the Sun. Ask for more
+            windows to look further ahead.
+          </p>
+        ) : view === 'list' ? (
+          <WindowsList windows={windows} />
+        ) : (
+          <WindowsCalendar windows={windows} />
+        )}
+      </ErrorBoundary>
+    </section>
   );
 }
 
@@ -279,22 +299,7 @@ function ViewToggle({ view, onView }: { view: View; onView: (view: View) => void
   );
 }
 
-/** The candidate's own fields come from its campaign's follow-up list: there is no single-candidate read. */
-function CandidateDetails({ campaignId, candidateId }: { campaignId: number; candidateId: number }) {
-  const candidates = useCandidates(campaignId);
-  if (candidates.isPending) return <Loading label="Loading the candidate…" />;
-  if (candidates.isError) {
-    return (
-      <Alert tone="danger" title="Could not load the candidate’s details">
-        <p>{isApiError(candidates.error) ? candidates.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => candidates.refetch()}>
-          Try again
-        </Button>
-      </Alert>
-    );
-  }
-  const candidate = candidates.data.candidates.find((item) => item.id === candidateId);
-  if (!candidate) return null;
+function CandidateDetails({ candidate }: { candidate: CandidateDetail }) {
   return (
     <section
       aria-labelledby="candidate-details-heading"

@@ -56,7 +56,32 @@ function windows(sites = true) {
 
 type Answer = { status: number; body: unknown };
 
-function fakeApi(windowsAnswer: Answer, candidatesAnswer?: Answer) {
+/** Candidate 1 on the demo server, as GET /api/candidates/1 answers. */
+const demoCandidate = {
+  id: 1,
+  campaignId: 1,
+  targetId: 209,
+  designation: 'LTS-358478',
+  promotedBy: 3,
+  state: 'scheduled',
+  disposition: 'planet candidate',
+  notes: null,
+  periodDays: 2.2319075929743697,
+  periodSigmaDays: 0.000011938128852288922,
+  t0Bjd: 2458001.0104166665,
+  t0SigmaDays: 0.00014275925760041277,
+  depthPpm: 5412,
+  durationHours: 1.5,
+  snr: 97.9,
+  priority: 4.5,
+  dipIds: [59, 60, 61],
+  createdAt: '2026-12-02T01:59:49.274Z',
+  updatedAt: '2026-12-02T01:59:49.274Z',
+  credits: { named: ['Brisa Dunmore'], others: 2 },
+  caution: notConfirmed,
+};
+
+function fakeApi(windowsAnswer: Answer, candidateAnswer: Answer = ok({ candidate: demoCandidate })) {
   const requested: string[] = [];
   const json = ({ status, body }: Answer) =>
     new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
@@ -66,16 +91,24 @@ function fakeApi(windowsAnswer: Answer, candidatesAnswer?: Answer) {
       const url = new URL(String(input), 'http://localhost');
       requested.push(`${url.pathname}${url.search}`);
       if (url.pathname === '/api/candidates/1/windows') return json(windowsAnswer);
-      if (url.pathname === '/api/campaigns/1/candidates' && candidatesAnswer) return json(candidatesAnswer);
+      if (url.pathname === '/api/candidates/1') return json(candidateAnswer);
       return json({ status: 404, body: { error: { code: 'not_found', message: 'No such thing' } } });
     }),
   );
   return { requested };
 }
 
-const ok = (body: unknown): Answer => ({ status: 200, body });
+function ok(body: unknown): Answer {
+  return { status: 200, body };
+}
 const windowsBody = (overrides: Record<string, unknown> = {}) => ({
-  candidate: { id: 1, designation: 'LTS-358478', periodDays: 2.2319075929743697 },
+  candidate: {
+    id: 1,
+    campaignId: 1,
+    targetId: 209,
+    designation: 'LTS-358478',
+    periodDays: 2.2319075929743697,
+  },
   windows: windows(),
   leftOutNearSun: 2,
   cautions: [notConfirmed, sunCaution],
@@ -180,43 +213,11 @@ describe('Candidate page: transit windows', () => {
     );
   });
 
-  it('with the campaign in the answer, shows the candidate’s state and credits from its follow-up list', async () => {
-    fakeApi(
-      ok(
-        windowsBody({
-          candidate: { id: 1, campaignId: 1, targetId: 209, designation: 'LTS-358478', periodDays: 2.23 },
-        }),
-      ),
-      ok({
-        caution: notConfirmed,
-        candidates: [
-          {
-            id: 1,
-            campaignId: 1,
-            targetId: 209,
-            designation: 'LTS-358478',
-            promotedBy: 3,
-            state: 'scheduled',
-            disposition: 'planet candidate',
-            notes: null,
-            periodDays: 2.2319075929743697,
-            periodSigmaDays: 0.000011938128852288922,
-            t0Bjd: 2458001.0104166665,
-            t0SigmaDays: 0.00014275925760041277,
-            depthPpm: 5412,
-            durationHours: 1.5,
-            snr: 97.9,
-            priority: 4.5,
-            dipIds: [59, 60, 61],
-            createdAt: '2026-12-02T01:59:49.274Z',
-            updatedAt: '2026-12-02T01:59:49.274Z',
-            credits: { named: ['Brisa Dunmore'], others: 2 },
-          },
-        ],
-      }),
-    );
+  it('shows the candidate’s state, credits and links from its own answer', async () => {
+    const api = fakeApi(ok(windowsBody()));
     renderPage();
     await screen.findByText('Found by Brisa Dunmore and 2 others');
+    expect(api.requested).toContain('/api/candidates/1');
     expect(screen.getByRole('link', { name: /The follow-up list/ }).getAttribute('href')).toBe(
       '/lab/campaigns/1/follow-up',
     );
@@ -243,18 +244,34 @@ describe('Candidate page: when there are no windows to give', () => {
     await screen.findByText('No period yet, so no transit windows');
     expect(screen.getByText(/has a single transit and no period/)).toBeTruthy();
     expect(screen.queryByRole('button', { name: 'Try again' })).toBeNull();
+    // The candidate itself is still there to read and change.
+    expect(screen.getByText('Found by Brisa Dunmore and 2 others')).toBeTruthy();
+    expect(screen.getByText(notConfirmed)).toBeTruthy();
+    expect(screen.getByRole('combobox', { name: 'State' })).toBeTruthy();
   });
 
   it('says there is no such candidate on 404', async () => {
-    fakeApi({ status: 404, body: { error: { code: 'not_found', message: 'Candidate not found' } } });
+    const missing = { status: 404, body: { error: { code: 'not_found', message: 'Candidate not found' } } };
+    fakeApi(missing, missing);
     renderPage();
     await screen.findByText('No such candidate');
   });
 
-  it('offers to try again when the server fails', async () => {
-    fakeApi({ status: 500, body: { error: { code: 'internal', message: 'Something broke on our side' } } });
+  it('offers to try again when the server fails on the windows, or on the candidate', async () => {
+    const broken = {
+      status: 500,
+      body: { error: { code: 'internal', message: 'Something broke on our side' } },
+    };
+    fakeApi(broken);
     renderPage();
     await screen.findByText('Something broke on our side');
+    expect(screen.getByText('Could not load the transit windows of candidate #1')).toBeTruthy();
+    expect(screen.getByRole('button', { name: 'Try again' })).toBeTruthy();
+    cleanup();
+
+    fakeApi(ok(windowsBody()), broken);
+    renderPage();
+    await screen.findByText('Could not load the candidate');
     expect(screen.getByRole('button', { name: 'Try again' })).toBeTruthy();
   });
 });
