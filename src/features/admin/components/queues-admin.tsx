@@ -4,6 +4,7 @@ import { Badge } from '@/components/badge';
 import { Button } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorBoundary } from '@/components/error-boundary';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
 import { Select } from '@/components/select';
@@ -128,12 +129,7 @@ function QueuesOverviewSection() {
   if (queues.isPending) return <Loading label="Loading queues…" />;
   if (queues.isError && !queues.data) {
     return (
-      <Alert tone="danger" title="Could not load the queues">
-        <p>{isApiError(queues.error) ? queues.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => queues.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure title="Could not load the queues" error={queues.error} onRetry={() => queues.refetch()} />
     );
   }
 
@@ -343,12 +339,7 @@ function FailedJobsTable({ queue, queues, onOutcome, onGone }: FailedJobsTablePr
   if (jobs.isPending) return <Loading label="Loading failed jobs…" />;
   if (jobs.isError && !jobs.data) {
     return (
-      <Alert tone="danger" title="Could not load the failed jobs">
-        <p>{isApiError(jobs.error) ? jobs.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => jobs.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure title="Could not load the failed jobs" error={jobs.error} onRetry={() => jobs.refetch()} />
     );
   }
 

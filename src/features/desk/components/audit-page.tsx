@@ -4,12 +4,12 @@ import { Alert } from '@/components/alert';
 import { Button } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorBoundary } from '@/components/error-boundary';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
 import { Pager } from '@/components/pager';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
 import { inputClasses } from '@/components/text-field';
-import { isApiError } from '@/lib/api-client';
 import type { AuditListParams } from '@/lib/query-keys';
 import { useAuditLog } from '../api/get-audit-log';
 import { type AuditEntry, describeChange } from '../lib/audit';
@@ -195,12 +195,7 @@ function AuditTable({ filters, onPage }: { filters: AuditFilters; onPage: (page:
   if (log.isPending) return <Loading label="Loading the audit log…" />;
   if (log.isError) {
     return (
-      <Alert tone="danger" title="Could not load the audit log">
-        <p>{isApiError(log.error) ? log.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => log.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure title="Could not load the audit log" error={log.error} onRetry={() => log.refetch()} />
     );
   }
 

@@ -5,13 +5,13 @@ import { Badge } from '@/components/badge';
 import { Button, ButtonLink, buttonClasses } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorBoundary } from '@/components/error-boundary';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
 import { Pager } from '@/components/pager';
 import { Select } from '@/components/select';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
 import { paths } from '@/config/paths';
-import { isApiError } from '@/lib/api-client';
 import { useSplitCampaigns, useSplits } from '../api/get-splits';
 import { formatCount, formatDateTime, formatScore, formatShare } from '../lib/format';
 import {
@@ -144,12 +144,11 @@ function SplitQueue({ queue, onPage }: { queue: QueueView; onPage: (page: number
   if (splits.isPending) return <Loading label="Loading the split queue…" />;
   if (splits.isError) {
     return (
-      <Alert tone="danger" title="Could not load the split queue">
-        <p>{isApiError(splits.error) ? splits.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => splits.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure
+        title="Could not load the split queue"
+        error={splits.error}
+        onRetry={() => splits.refetch()}
+      />
     );
   }
 

@@ -6,13 +6,13 @@ import { Button } from '@/components/button';
 import { CheckboxField } from '@/components/checkbox-field';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorBoundary } from '@/components/error-boundary';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
 import { Pager } from '@/components/pager';
 import { Select } from '@/components/select';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
 import { inputClasses } from '@/components/text-field';
-import { isApiError } from '@/lib/api-client';
 import type { DeskVolunteerListParams } from '@/lib/query-keys';
 import { useDeskVolunteers } from '../api/get-desk-volunteers';
 import { useSplitCampaigns } from '../api/get-splits';
@@ -211,12 +211,11 @@ function VolunteerTable({ filters, onChange, onOutcome }: VolunteerTableProps) {
   if (volunteers.isPending) return <Loading label="Loading volunteers…" />;
   if (volunteers.isError) {
     return (
-      <Alert tone="danger" title="Could not load the volunteers">
-        <p>{isApiError(volunteers.error) ? volunteers.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => volunteers.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure
+        title="Could not load the volunteers"
+        error={volunteers.error}
+        onRetry={() => volunteers.refetch()}
+      />
     );
   }
 

@@ -3,10 +3,10 @@ import { Link } from 'react-router-dom';
 import { Alert } from '@/components/alert';
 import { Button } from '@/components/button';
 import { ErrorBoundary } from '@/components/error-boundary';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
 import { paths } from '@/config/paths';
-import { isApiError } from '@/lib/api-client';
 import { useOpenApi } from '../api/get-openapi';
 import {
   type ApiReference,
@@ -57,12 +57,11 @@ function Reference() {
   if (reference.isPending) return <Loading label="Loading the API reference…" />;
   if (reference.isError) {
     return (
-      <Alert tone="danger" title="Could not load the API description">
-        <p>{isApiError(reference.error) ? reference.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => reference.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure
+        title="Could not load the API description"
+        error={reference.error}
+        onRetry={() => reference.refetch()}
+      />
     );
   }
   return <ReferenceView reference={reference.data} />;

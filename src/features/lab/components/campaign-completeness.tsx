@@ -1,3 +1,4 @@
+import { LoadFailure } from '@/components/load-failure';
 import 'uplot/dist/uPlot.min.css';
 import { useEffect, useId, useMemo, useRef, useState } from 'react';
 import uPlot from 'uplot';
@@ -7,7 +8,6 @@ import { ErrorBoundary } from '@/components/error-boundary';
 import { Loading } from '@/components/loading';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
 import { fonts, palette } from '@/config/design-tokens';
-import { isApiError } from '@/lib/api-client';
 import {
   type Completeness,
   type RecoveryBin,
@@ -71,12 +71,11 @@ export function CampaignCompleteness({ campaignId }: { campaignId: number }) {
   if (completeness.isPending) return <Loading label="Loading the completeness figures…" />;
   if (completeness.isError) {
     return (
-      <Alert tone="danger" title="Could not load the completeness figures">
-        <p>{isApiError(completeness.error) ? completeness.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => completeness.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure
+        title="Could not load the completeness figures"
+        error={completeness.error}
+        onRetry={() => completeness.refetch()}
+      />
     );
   }
   const data = completeness.data;

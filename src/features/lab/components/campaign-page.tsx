@@ -4,6 +4,7 @@ import { Alert } from '@/components/alert';
 import { Button, ButtonLink } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorBoundary } from '@/components/error-boundary';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
 import { paths } from '@/config/paths';
@@ -34,12 +35,11 @@ export function CampaignPage({ campaignId }: { campaignId: number }) {
         <p>There is no campaign with the number {campaignId}. The link may be old.</p>
       </EmptyState>
     ) : (
-      <Alert tone="danger" title="Could not load the campaign">
-        <p>{isApiError(campaign.error) ? campaign.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => campaign.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure
+        title="Could not load the campaign"
+        error={campaign.error}
+        onRetry={() => campaign.refetch()}
+      />
     );
   }
   return <CampaignView campaign={campaign.data} />;

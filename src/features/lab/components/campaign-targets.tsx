@@ -1,14 +1,12 @@
 import { useEffect, useId, useState } from 'react';
 import { Link } from 'react-router-dom';
-import { Alert } from '@/components/alert';
 import { Badge } from '@/components/badge';
-import { Button } from '@/components/button';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { Pager } from '@/components/pager';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
 import { inputClasses } from '@/components/text-field';
 import { paths } from '@/config/paths';
-import { isApiError } from '@/lib/api-client';
 import { useTargets } from '../api/get-targets';
 import { formatCount } from '../lib/format';
 import { fieldLabel, formatDec, formatNumber, formatRa, type Target } from '../lib/targets';
@@ -67,12 +65,11 @@ function TargetTable({
   if (targets.isPending) return <Loading label="Loading targets…" />;
   if (targets.isError) {
     return (
-      <Alert tone="danger" title="Could not load the targets">
-        <p>{isApiError(targets.error) ? targets.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => targets.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure
+        title="Could not load the targets"
+        error={targets.error}
+        onRetry={() => targets.refetch()}
+      />
     );
   }
   const { total } = targets.data;

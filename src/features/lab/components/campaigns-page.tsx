@@ -3,11 +3,11 @@ import { Alert } from '@/components/alert';
 import { Button, ButtonLink } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorBoundary } from '@/components/error-boundary';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
 import { paths } from '@/config/paths';
-import { isApiError } from '@/lib/api-client';
 import { useCampaigns } from '../api/get-campaigns';
 import { type Campaign, snippetTotal } from '../lib/campaigns';
 import { formatCount, formatDate } from '../lib/format';
@@ -43,12 +43,11 @@ function CampaignList() {
   if (campaigns.isPending) return <Loading label="Loading campaigns…" />;
   if (campaigns.isError) {
     return (
-      <Alert tone="danger" title="Could not load the campaigns">
-        <p>{isApiError(campaigns.error) ? campaigns.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => campaigns.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure
+        title="Could not load the campaigns"
+        error={campaigns.error}
+        onRetry={() => campaigns.refetch()}
+      />
     );
   }
   if (campaigns.data.length === 0) {

@@ -5,6 +5,7 @@ import { Badge } from '@/components/badge';
 import { Button, ButtonLink } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorBoundary } from '@/components/error-boundary';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
 import { Select } from '@/components/select';
@@ -54,12 +55,7 @@ export function CandidatePage({ candidateId }: { candidateId: number }) {
       );
     }
     return (
-      <Alert tone="danger" title="Could not load the candidate">
-        <p>{isApiError(error) ? error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => candidate.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure title="Could not load the candidate" error={error} onRetry={() => candidate.refetch()} />
     );
   }
   return <CandidateView candidate={candidate.data} />;

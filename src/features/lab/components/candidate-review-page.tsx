@@ -5,6 +5,7 @@ import { Button, ButtonLink } from '@/components/button';
 import { CheckboxField } from '@/components/checkbox-field';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorBoundary } from '@/components/error-boundary';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
 import { Select } from '@/components/select';
@@ -68,12 +69,11 @@ export function CandidateReviewPage({ campaignId }: { campaignId: number }) {
               <p>There is no campaign with the number {campaignId}. The link may be old.</p>
             </EmptyState>
           ) : (
-            <Alert tone="danger" title="Could not load the settled dips">
-              <p>{isApiError(targets.error) ? targets.error.message : 'Something went wrong.'}</p>
-              <Button variant="secondary" className="mt-2" onClick={() => targets.refetch()}>
-                Try again
-              </Button>
-            </Alert>
+            <LoadFailure
+              title="Could not load the settled dips"
+              error={targets.error}
+              onRetry={() => targets.refetch()}
+            />
           )
         ) : targets.data.length === 0 ? (
           <EmptyState

@@ -3,6 +3,7 @@ import { Alert } from '@/components/alert';
 import { Button, ButtonLink } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorBoundary } from '@/components/error-boundary';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
 import { paths } from '@/config/paths';
@@ -50,12 +51,11 @@ export function FollowUpPage({ campaignId }: { campaignId: number }) {
             <p>There is no campaign with the number {campaignId}. The link may be old.</p>
           </EmptyState>
         ) : (
-          <Alert tone="danger" title="Could not load the follow-up list">
-            <p>{isApiError(candidates.error) ? candidates.error.message : 'Something went wrong.'}</p>
-            <Button variant="secondary" className="mt-2" onClick={() => candidates.refetch()}>
-              Try again
-            </Button>
-          </Alert>
+          <LoadFailure
+            title="Could not load the follow-up list"
+            error={candidates.error}
+            onRetry={() => candidates.refetch()}
+          />
         )
       ) : (
         <FollowUpView campaignId={campaignId} answer={candidates.data} />

@@ -2,6 +2,7 @@ import { useEffect, useRef, useState } from 'react';
 import { Alert } from '@/components/alert';
 import { Button } from '@/components/button';
 import { ErrorBoundary } from '@/components/error-boundary';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
@@ -182,12 +183,11 @@ function ObservatoryList({
   if (observatories.isPending) return <Loading label="Loading the observatories…" />;
   if (observatories.isError) {
     return (
-      <Alert tone="danger" title="Could not load the observatories">
-        <p>{isApiError(observatories.error) ? observatories.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => observatories.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure
+        title="Could not load the observatories"
+        error={observatories.error}
+        onRetry={() => observatories.refetch()}
+      />
     );
   }
   if (observatories.data.length === 0) {

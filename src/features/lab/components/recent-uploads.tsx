@@ -1,9 +1,7 @@
-import { Alert } from '@/components/alert';
 import { Badge } from '@/components/badge';
-import { Button } from '@/components/button';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
-import { isApiError } from '@/lib/api-client';
 import { useCampaignUploads } from '../api/get-campaign-uploads';
 import { formatCount, formatDateTime } from '../lib/format';
 import {
@@ -24,12 +22,11 @@ export function RecentUploads({ campaignId }: { campaignId: number }) {
   if (uploads.isPending) return <Loading label="Loading recent uploads…" />;
   if (uploads.isError) {
     return (
-      <Alert tone="danger" title="Could not load the recent uploads">
-        <p>{isApiError(uploads.error) ? uploads.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => uploads.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure
+        title="Could not load the recent uploads"
+        error={uploads.error}
+        onRetry={() => uploads.refetch()}
+      />
     );
   }
   if (uploads.data.length === 0) {

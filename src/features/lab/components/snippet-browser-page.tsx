@@ -5,6 +5,7 @@ import { Badge } from '@/components/badge';
 import { Button } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorBoundary } from '@/components/error-boundary';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
 import { Pager } from '@/components/pager';
@@ -12,7 +13,6 @@ import { Select } from '@/components/select';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
 import { inputClasses } from '@/components/text-field';
 import { paths } from '@/config/paths';
-import { isApiError } from '@/lib/api-client';
 import type { SnippetListParams } from '@/lib/query-keys';
 import { useCampaign } from '../api/get-campaign';
 import { useSnippets } from '../api/get-snippets';
@@ -255,12 +255,11 @@ function SnippetTable({ params, selected, onChoose, onHover, onChange }: Snippet
   if (snippets.isPending) return <Loading label="Loading snippets…" />;
   if (snippets.isError) {
     return (
-      <Alert tone="danger" title="Could not load the snippets">
-        <p>{isApiError(snippets.error) ? snippets.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => snippets.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure
+        title="Could not load the snippets"
+        error={snippets.error}
+        onRetry={() => snippets.refetch()}
+      />
     );
   }
 

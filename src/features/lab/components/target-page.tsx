@@ -6,6 +6,7 @@ import { Button, ButtonLink, buttonClasses } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorBoundary } from '@/components/error-boundary';
 import { LightCurvePlot, type PlotBand, type PlotMarker } from '@/components/light-curve-plot';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
@@ -50,12 +51,7 @@ export function TargetPage({ targetId }: { targetId: number }) {
         <p>There is no target with the number {targetId}. The link may be old.</p>
       </EmptyState>
     ) : (
-      <Alert tone="danger" title="Could not load the target">
-        <p>{isApiError(target.error) ? target.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => target.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure title="Could not load the target" error={target.error} onRetry={() => target.refetch()} />
     );
   }
   return <TargetView detail={target.data} />;

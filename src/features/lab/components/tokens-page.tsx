@@ -4,6 +4,7 @@ import { Alert } from '@/components/alert';
 import { Badge } from '@/components/badge';
 import { Button } from '@/components/button';
 import { ErrorBoundary } from '@/components/error-boundary';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
@@ -203,12 +204,7 @@ function TokenList({ onOutcome }: { onOutcome: (outcome: Outcome) => void }) {
   if (tokens.isPending) return <Loading label="Loading your tokens…" />;
   if (tokens.isError) {
     return (
-      <Alert tone="danger" title="Could not load your tokens">
-        <p>{isApiError(tokens.error) ? tokens.error.message : 'Something went wrong.'}</p>
-        <Button variant="secondary" className="mt-2" onClick={() => tokens.refetch()}>
-          Try again
-        </Button>
-      </Alert>
+      <LoadFailure title="Could not load your tokens" error={tokens.error} onRetry={() => tokens.refetch()} />
     );
   }
   if (tokens.data.length === 0) {

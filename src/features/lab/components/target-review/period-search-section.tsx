@@ -3,6 +3,7 @@ import { type FormEvent, useEffect, useRef, useState } from 'react';
 import { Alert } from '@/components/alert';
 import { Badge } from '@/components/badge';
 import { Button } from '@/components/button';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { TextField } from '@/components/text-field';
 import { isApiError } from '@/lib/api-client';
@@ -51,12 +52,11 @@ export function PeriodSearchSection({ targetId, designation, parts }: PeriodSear
       {search.isPending ? (
         <Loading label="Reading the period search…" />
       ) : search.isError ? (
-        <Alert tone="danger" title="Could not read the period search">
-          <p>{isApiError(search.error) ? search.error.message : 'Something went wrong.'}</p>
-          <Button variant="secondary" className="mt-2" onClick={() => search.refetch()}>
-            Try again
-          </Button>
-        </Alert>
+        <LoadFailure
+          title="Could not read the period search"
+          error={search.error}
+          onRetry={() => search.refetch()}
+        />
       ) : (
         <>
           <SearchState periodSearch={search.data} />

@@ -1,6 +1,5 @@
-import { Alert } from '@/components/alert';
 import { Badge } from '@/components/badge';
-import { Button } from '@/components/button';
+import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { isApiError } from '@/lib/api-client';
 import { useVetting, type Vetting, type VettingDiagnostic } from '../../api/get-vetting';
@@ -40,12 +39,11 @@ export function VettingSection({ targetId }: { targetId: number }) {
             {vetting.error.message}.
           </p>
         ) : (
-          <Alert tone="danger" title="Could not vet the target">
-            <p>{isApiError(vetting.error) ? vetting.error.message : 'Something went wrong.'}</p>
-            <Button variant="secondary" className="mt-2" onClick={() => vetting.refetch()}>
-              Try again
-            </Button>
-          </Alert>
+          <LoadFailure
+            title="Could not vet the target"
+            error={vetting.error}
+            onRetry={() => vetting.refetch()}
+          />
         )
       ) : (
         <VettingView vetting={vetting.data} />
