@@ -2,7 +2,6 @@ import { type ReactNode, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Alert } from '@/components/alert';
 import { Button, ButtonLink } from '@/components/button';
-import { EmptyState } from '@/components/empty-state';
 import { ErrorBoundary } from '@/components/error-boundary';
 import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
@@ -13,6 +12,7 @@ import { useCampaign } from '../api/get-campaign';
 import { type Campaign, snippetTotal } from '../lib/campaigns';
 import { formatCount, formatDateTime } from '../lib/format';
 import { CampaignCompleteness } from './campaign-completeness';
+import { CampaignNotFound } from './campaign-not-found';
 import { CampaignSettingsForm } from './campaign-settings-form';
 import { CampaignStatusActions, type Outcome } from './campaign-status-actions';
 import { CampaignStatusBadge } from './campaign-status-badge';
@@ -28,12 +28,7 @@ export function CampaignPage({ campaignId }: { campaignId: number }) {
   if (campaign.isError) {
     const missing = isApiError(campaign.error) && campaign.error.status === 404;
     return missing ? (
-      <EmptyState
-        title="No such campaign"
-        action={<ButtonLink to={paths.lab.getHref()}>All campaigns</ButtonLink>}
-      >
-        <p>There is no campaign with the number {campaignId}. The link may be old.</p>
-      </EmptyState>
+      <CampaignNotFound campaignId={campaignId} />
     ) : (
       <LoadFailure
         title="Could not load the campaign"

@@ -22,6 +22,7 @@ import {
 } from '../lib/candidates';
 import { formatCount, plural } from '../lib/format';
 import { formatScore } from '../lib/snippets';
+import { CampaignNotFound } from './campaign-not-found';
 import { BackLink } from './follow-up/back-link';
 
 /** A campaign's settled dips grouped by target, strongest first: where scientists choose candidates. */
@@ -62,12 +63,7 @@ export function CandidateReviewPage({ campaignId }: { campaignId: number }) {
           <Loading label="Loading the settled dips…" />
         ) : targets.isError ? (
           isApiError(targets.error) && targets.error.status === 404 ? (
-            <EmptyState
-              title="No such campaign"
-              action={<ButtonLink to={paths.lab.getHref()}>All campaigns</ButtonLink>}
-            >
-              <p>There is no campaign with the number {campaignId}. The link may be old.</p>
-            </EmptyState>
+            <CampaignNotFound campaignId={campaignId} />
           ) : (
             <LoadFailure
               title="Could not load the settled dips"

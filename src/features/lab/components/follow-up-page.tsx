@@ -11,6 +11,7 @@ import { isApiError } from '@/lib/api-client';
 import { type CampaignCandidates, useCandidates } from '../api/get-candidates';
 import { orderByPriority } from '../lib/candidates';
 import { plural } from '../lib/format';
+import { CampaignNotFound } from './campaign-not-found';
 import { BackLink } from './follow-up/back-link';
 import { CandidateCard } from './follow-up/candidate-card';
 import { CandidateCaution } from './follow-up/candidate-caution';
@@ -44,12 +45,7 @@ export function FollowUpPage({ campaignId }: { campaignId: number }) {
         <Loading label="Loading the follow-up list…" />
       ) : candidates.isError ? (
         isApiError(candidates.error) && candidates.error.status === 404 ? (
-          <EmptyState
-            title="No such campaign"
-            action={<ButtonLink to={paths.lab.getHref()}>All campaigns</ButtonLink>}
-          >
-            <p>There is no campaign with the number {campaignId}. The link may be old.</p>
-          </EmptyState>
+          <CampaignNotFound campaignId={campaignId} />
         ) : (
           <LoadFailure
             title="Could not load the follow-up list"
