@@ -11,6 +11,7 @@ import { type Figure, formatFigure } from './figures';
 import * as pipeline from './pipeline.bench';
 import * as queue from './queue.bench';
 import * as readers from './readers.bench';
+import * as vetting from './vetting.bench';
 
 const BENCHMARKS: [name: string, run: () => Promise<Figure[]>][] = [
   ['auth', auth.run],
@@ -24,6 +25,7 @@ const BENCHMARKS: [name: string, run: () => Promise<Figure[]>][] = [
   ['client', client.run],
   ['deck-inp', deckInp.run],
   ['exports', exports.run],
+  ['vetting', vetting.run],
 ];
 
 const filter = process.argv[2];
