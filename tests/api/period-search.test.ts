@@ -94,10 +94,13 @@ describe('period search', () => {
     expect(verdictOf('shape')).toBe('pass');
   });
 
-  it('answers 404 before any search and for an unknown target, 400 for bad settings, 403 for volunteers', async () => {
+  it('answers null before any search, 404 for an unknown target, 400 for bad settings, 403 for volunteers', async () => {
     const { browser } = await signedIn(test, 'scientist');
-    expect((await browser.get(`/api/targets/${quietTargetId}/period-search`)).status).toBe(404);
+    const none = await browser.get(`/api/targets/${quietTargetId}/period-search`);
+    expect(none.status).toBe(200);
+    expect(none.body).toEqual({ periodSearch: null });
     expect((await browser.post('/api/targets/999999/period-search', {})).status).toBe(404);
+    expect((await browser.get('/api/targets/999999/period-search')).status).toBe(404);
     const bad = await browser.post(`/api/targets/${quietTargetId}/period-search`, { minPeriodDays: -1 });
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields).toHaveProperty('minPeriodDays');
@@ -107,7 +110,8 @@ describe('period search', () => {
     });
     expect(inverted.status).toBe(400);
     expect(inverted.body.error.fields).toHaveProperty('maxPeriodDays');
-    expect((await browser.get(`/api/targets/${quietTargetId}/period-search`)).status).toBe(404);
+    // Refused settings start nothing.
+    expect((await browser.get(`/api/targets/${quietTargetId}/period-search`)).body.periodSearch).toBeNull();
     // Nothing to vet yet: no search and no measured dip.
     const vetting = await browser.get(`/api/targets/${quietTargetId}/vetting`);
     expect(vetting.status).toBe(409);

@@ -162,7 +162,7 @@ export const labRoutes = (deps: AppDeps) => [
     path: '/targets/:id/period-search',
     access: 'scientist',
     summary:
-      'The latest period search of a target: its state, or its result (period, t0, depth, duration, SNR, diagnostics)',
+      'The latest period search of a target (null before the first): its state, or its result (period, t0, depth, duration, SNR, diagnostics)',
     params: idParams,
     handle: ({ params }) => latestPeriodSearchOf(deps.db, deps.queues, params.id),
   }),

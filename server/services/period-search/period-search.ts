@@ -94,13 +94,14 @@ export async function requestPeriodSearch(
 }
 
 /**
- * The latest period search of a target; while it waits or runs, with its job's progress, so that any
+ * The latest period search of a target (null before the first); while it waits or runs, with its job's progress, so that any
  * scientist looking at the target (not only the one who started it) can follow it.
  */
 export async function latestPeriodSearchOf(db: Db, queues: Queues | undefined, targetId: number) {
   await findTarget(db, targetId);
   const row = await latestPeriodSearch(db, targetId);
-  if (!row) throw notFound('Period search');
+  // None yet is an ordinary state of a target, not a missing resource: the page asks on every visit.
+  if (!row) return { periodSearch: null };
   const progress =
     row.status === 'queued' || row.status === 'running' ? await jobProgress(queues, row) : null;
   return { periodSearch: { ...periodSearchView(row), progress } };

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiPaths } from '@/config/paths';
-import { api, isApiError } from '@/lib/api-client';
+import { api } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 import { periodSearchPollInterval } from '../lib/period-search';
 
@@ -70,17 +70,12 @@ export const periodSearchSchema = z.object({
 
 export type PeriodSearch = z.infer<typeof periodSearchSchema>;
 
-const responseSchema = z.object({ periodSearch: periodSearchSchema });
+const responseSchema = z.object({ periodSearch: periodSearchSchema.nullable() });
 
-/** The target's latest period search, or null when none was ever started (the API answers 404). */
+/** The target's latest period search, or null when none was ever started. */
 export async function getPeriodSearch(targetId: number, signal?: AbortSignal): Promise<PeriodSearch | null> {
-  try {
-    const { periodSearch } = await api.get(apiPaths.targetPeriodSearch(targetId), responseSchema, { signal });
-    return periodSearch;
-  } catch (error) {
-    if (isApiError(error) && error.status === 404 && error.code === 'not_found') return null;
-    throw error;
-  }
+  const { periodSearch } = await api.get(apiPaths.targetPeriodSearch(targetId), responseSchema, { signal });
+  return periodSearch;
 }
 
 export const periodSearchQueryOptions = (targetId: number) =>

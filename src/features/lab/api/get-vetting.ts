@@ -81,6 +81,6 @@ export const vettingQueryOptions = (targetId: number) =>
     queryFn: ({ signal }) => getVetting(targetId, signal),
   });
 
-export function useVetting(targetId: number) {
-  return useQuery(vettingQueryOptions(targetId));
+export function useVetting(targetId: number, { enabled = true }: { enabled?: boolean } = {}) {
+  return useQuery({ ...vettingQueryOptions(targetId), enabled });
 }

@@ -147,7 +147,7 @@ function TargetView({ detail }: { detail: TargetDetail }) {
 
       <PeriodSearchSection targetId={target.id} designation={target.designation} parts={parts} />
 
-      <VettingSection targetId={target.id} />
+      <VettingSection targetId={target.id} hasDips={detail.dips.length > 0} />
 
       <PromotionSection
         campaignId={target.campaignId}

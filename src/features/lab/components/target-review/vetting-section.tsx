@@ -2,6 +2,7 @@ import { Badge } from '@/components/badge';
 import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { isApiError } from '@/lib/api-client';
+import { usePeriodSearch } from '../../api/get-period-search';
 import { useVetting, type Vetting, type VettingDiagnostic } from '../../api/get-vetting';
 import { formatPeriodDays } from '../../lib/period-search';
 import {
@@ -16,8 +17,12 @@ import {
   warningCount,
 } from '../../lib/vetting';
 
-export function VettingSection({ targetId }: { targetId: number }) {
-  const vetting = useVetting(targetId);
+/** `hasDips`: whether the target has settled dips; without them and without a finished search there is nothing to ask. */
+export function VettingSection({ targetId, hasDips }: { targetId: number; hasDips: boolean }) {
+  const search = usePeriodSearch(targetId);
+  const searched = search.data?.status === 'done';
+  const vetting = useVetting(targetId, { enabled: hasDips || searched });
+  const nothingYet = !hasDips && !searched && !search.isPending;
   return (
     <section aria-labelledby="vetting-heading" className="flex flex-col gap-4">
       <div className="flex flex-col gap-1">
@@ -30,14 +35,13 @@ export function VettingSection({ targetId }: { targetId: number }) {
           telescope’s time.
         </p>
       </div>
-      {vetting.isPending ? (
+      {nothingYet ? (
+        <NothingToVet message="This target has no settled dip and no finished period search yet" />
+      ) : vetting.isPending ? (
         <Loading label="Vetting the target…" />
       ) : vetting.isError ? (
         isApiError(vetting.error) && vetting.error.status === 409 ? (
-          <p className="rounded-lg border border-dashed border-edge bg-surface px-4 py-5 text-base text-muted">
-            <span className="font-semibold text-ink">Nothing to vet yet. </span>
-            {vetting.error.message}.
-          </p>
+          <NothingToVet message={vetting.error.message} />
         ) : (
           <LoadFailure
             title="Could not vet the target"
@@ -49,6 +53,15 @@ export function VettingSection({ targetId }: { targetId: number }) {
         <VettingView vetting={vetting.data} />
       )}
     </section>
+  );
+}
+
+function NothingToVet({ message }: { message: string }) {
+  return (
+    <p className="rounded-lg border border-dashed border-edge bg-surface px-4 py-5 text-base text-muted">
+      <span className="font-semibold text-ink">Nothing to vet yet. </span>
+      {message}.
+    </p>
   );
 }
 

@@ -238,10 +238,8 @@ const json = ({ status, body }: Answer) =>
     headers: { 'Content-Type': 'application/json' },
   });
 
-const notFound = {
-  status: 404,
-  body: { error: { code: 'not_found', message: 'Period search was not found' } },
-};
+/** Before its first search, a target's latest period search is null. */
+const noSearch = { status: 200, body: { periodSearch: null } };
 
 interface FakeOptions {
   /** What the latest period search is, step by step: `advance()` moves to the next. */
@@ -253,7 +251,7 @@ interface FakeOptions {
 
 function fakeApi(options: FakeOptions = {}) {
   const state = {
-    searches: options.searches ?? [notFound],
+    searches: options.searches ?? [noSearch],
     step: 0,
     started: false,
     candidateId: null as number | null,
@@ -362,7 +360,7 @@ describe('Target review: period search', () => {
     const running = search('running', { progress: { percent: 40, stage: 'searching 400 periods' } });
     const fake = fakeApi({
       searches: [
-        notFound,
+        noSearch,
         { status: 200, body: { periodSearch: search('queued') } },
         { status: 200, body: { periodSearch: running } },
         { status: 200, body: { periodSearch: search('done', { result }) } },
@@ -509,15 +507,24 @@ describe('Target review: vetting', () => {
     expect(vetting.getByText(/A candidate is not a confirmed planet/)).toBeTruthy();
   });
 
-  it('says there is nothing to vet when the API answers 409, without an error', async () => {
+  it('does not ask for vetting while the target has no dip and no search, and says so', async () => {
+    const fake = fakeApi({ withDips: false });
+    renderPage();
+    const vetting = within(await screen.findByRole('region', { name: 'Vetting' }));
+    expect(await vetting.findByText('Nothing to vet yet.')).toBeTruthy();
+    expect(vetting.getByText(/no settled dip and no finished period search yet/)).toBeTruthy();
+    expect(vetting.queryByRole('alert')).toBeNull();
+    expect(fake.state.gets).not.toContain(`/api/targets/${TARGET_ID}/vetting`);
+  });
+
+  it('says why there is nothing to vet when the API answers 409, without an error', async () => {
     fakeApi({
-      withDips: false,
       vettingBeforeSearch: {
         status: 409,
         body: {
           error: {
-            code: 'nothing_to_vet',
-            message: 'This target has no finished period search and no measured dip yet',
+            code: 'no_stellar_parameters',
+            message: 'The catalogue gives this star no radius, mass or temperature; add them to vet it',
           },
         },
       },
@@ -525,7 +532,7 @@ describe('Target review: vetting', () => {
     renderPage();
     const vetting = within(await screen.findByRole('region', { name: 'Vetting' }));
     expect(await vetting.findByText('Nothing to vet yet.')).toBeTruthy();
-    expect(vetting.getByText(/no finished period search and no measured dip yet/)).toBeTruthy();
+    expect(vetting.getByText(/no radius, mass or temperature/)).toBeTruthy();
     expect(vetting.queryByRole('alert')).toBeNull();
   });
 });
