@@ -10,6 +10,8 @@ export interface PersonView {
   suspended: boolean;
   newsletterOptIn: boolean;
   creditByName: boolean;
+  /** Whether the person followed the link in the address-confirmation mail. */
+  emailConfirmed: boolean;
   createdAt: string;
 }
 
@@ -22,6 +24,7 @@ export function toPersonView(person: PersonRow): PersonView {
     suspended: person.suspendedAt !== null,
     newsletterOptIn: person.newsletterOptIn,
     creditByName: person.creditByName,
+    emailConfirmed: person.emailConfirmedAt !== null,
     createdAt: person.createdAt,
   };
 }
