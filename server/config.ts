@@ -22,6 +22,7 @@ const envSchema = z.object({
     .string()
     .regex(/^smtps?:\/\//, 'SMTP_URL must be an smtp:// or smtps:// URL')
     .optional(),
+  MAIL_FROM: z.string().trim().min(3).max(320).default('Dipdeck <dipdeck@localhost>'),
   SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters').optional(),
   PUBLIC_URL: z.url().optional(),
   DIPDECK_DEMO: booleanFlag.default(true),
@@ -47,6 +48,8 @@ export interface Config {
   databaseUrl: string | undefined;
   redisUrl: string | undefined;
   smtpUrl: string | undefined;
+  /** The From of every mail Dipdeck sends. */
+  mailFrom: string;
   sessionSecret: string | undefined;
   publicUrl: string;
   demo: boolean;
@@ -83,6 +86,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     databaseUrl: e.DATABASE_URL,
     redisUrl: e.REDIS_URL,
     smtpUrl: e.SMTP_URL,
+    mailFrom: e.MAIL_FROM,
     sessionSecret: e.SESSION_SECRET,
     publicUrl: (e.PUBLIC_URL ?? `http://localhost:${e.PORT}`).replace(/\/$/, ''),
     demo: e.DIPDECK_DEMO,

@@ -6,6 +6,7 @@ import { ConfigError, loadConfig } from './config';
 import { createDb } from './db/knex';
 import { createApp } from './http/app';
 import { createLogger } from './logger';
+import { createMailer } from './mail/mailer';
 import { demoAccountsBanner, prepareDatabase } from './prepare-database';
 
 async function main(): Promise<void> {
@@ -15,9 +16,10 @@ async function main(): Promise<void> {
   await prepareDatabase(db, config, logger);
 
   const queues = createQueues(createRedisConnection(config));
-  if (queues.backend === 'embedded') {
-    // The embedded store lives in this process, so this process is also the worker.
-    await startProcessors(queues, { config, db, logger, queues });
+  const mailer = queues.backend === 'embedded' ? await createMailer(config, db, logger) : null;
+  if (mailer) {
+    // The embedded store lives in this process, so this process is also the worker (and sends the mail).
+    await startProcessors(queues, { config, db, logger, queues, mailer });
   }
 
   const { app } = createApp({ config, db, logger, queues });
@@ -33,6 +35,7 @@ async function main(): Promise<void> {
       ? 'Background jobs run in this process (embedded queues; set REDIS_URL to scale out).'
       : 'Background jobs go to Redis: start workers with `npm run worker`.',
   );
+  if (mailer) console.info(`Mail goes to ${mailer.describe()}; read it in Admin → Outbox.`);
   if (config.demo) console.info(demoAccountsBanner());
 
   let stopping = false;
@@ -46,6 +49,7 @@ async function main(): Promise<void> {
       server.closeIdleConnections();
     });
     await queues.close().catch((error: unknown) => logger.error({ err: error }, 'closing the queues failed'));
+    await mailer?.close();
     await db.destroy();
     process.exit(0);
   };

@@ -4,6 +4,7 @@ import { ConfigError, loadConfig } from '../server/config';
 import { createDb } from '../server/db/knex';
 import { migrateLatest } from '../server/db/migrate';
 import { createLogger } from '../server/logger';
+import { createMailer } from '../server/mail/mailer';
 import { createQueues } from './queues';
 import { createRedisConnection } from './redis-connection';
 import { startProcessors } from './start-processors';
@@ -21,8 +22,9 @@ async function main(): Promise<void> {
   const db = createDb(config);
   await migrateLatest(db);
   const queues = createQueues(createRedisConnection(config));
-  await startProcessors(queues, { config, db, logger, queues });
-  logger.info('worker ready');
+  const mailer = await createMailer(config, db, logger);
+  await startProcessors(queues, { config, db, logger, queues, mailer });
+  logger.info({ mail: mailer.describe() }, 'worker ready');
   console.info(`Dipdeck worker ${process.pid} is taking jobs from ${new URL(config.redisUrl).host}`);
 
   let stopping = false;
@@ -33,6 +35,7 @@ async function main(): Promise<void> {
     // Past the grace period we exit anyway: the job's lock lapses and another worker takes it over.
     setTimeout(() => process.exit(1), SHUTDOWN_GRACE_MS).unref();
     await queues.close();
+    await mailer.close();
     await db.destroy();
     logger.info('worker stopped');
     process.exit(0);

@@ -35,6 +35,14 @@ export const JOB_DATA = {
     /** BLS over a target's light curves for the period_searches row. */
     search: z.object({ periodSearchId: z.number().int().positive() }),
   },
+  mail: {
+    /** The address-confirmation link to a person who signed up (or asked for it again). */
+    'confirm-address': z.object({ personId: z.number().int().positive() }),
+    /** A reset link, if an account has this address: the request is answered before anyone looks. */
+    'password-reset': z.object({ email: z.string().max(254) }),
+    /** A moderator's warning to a volunteer, with the moderator's note. */
+    'moderator-warning': z.object({ personId: z.number().int().positive(), note: z.string().max(2_000) }),
+  },
   housekeeping: {
     sweep: z.object({}),
   },

@@ -3,6 +3,7 @@ import { consensusProcessor } from './processors/consensus';
 import type { ProcessorContext } from './processors/context';
 import { housekeepingProcessor } from './processors/housekeeping';
 import { ingestProcessor } from './processors/ingest';
+import { mailProcessor } from './processors/mail';
 import { periodSearchProcessor } from './processors/period-search';
 import { QUEUES, type QueueKey, type Queues } from './queues';
 
@@ -15,6 +16,7 @@ function processors(ctx: ProcessorContext): Partial<Record<QueueKey, Processor>>
     consensus: consensusProcessor(ctx),
     periodSearch: periodSearchProcessor(ctx),
     housekeeping: housekeepingProcessor(ctx),
+    ...(ctx.mailer ? { mail: mailProcessor({ ...ctx, mailer: ctx.mailer }) } : {}),
   };
 }
 

@@ -5,6 +5,7 @@ import * as consensus from '../../migrations/20261202000000_consensus';
 import * as desk from '../../migrations/20261202010000_desk';
 import * as periodSearches from '../../migrations/20261202020000_period_searches';
 import * as observatories from '../../migrations/20261202030000_observatories';
+import * as mail from '../../migrations/20261202040000_mail';
 
 // Migrations are imported here rather than found on disk, so that they load the same way under tsx,
 // vitest and any bundler. A new migration file is added to this list, in order (see DEVELOPERS.md).
@@ -15,6 +16,7 @@ const MIGRATIONS: [name: string, module: Knex.Migration][] = [
   ['20261202010000_desk', desk],
   ['20261202020000_period_searches', periodSearches],
   ['20261202030000_observatories', observatories],
+  ['20261202040000_mail', mail],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Knex.Migration]> = {

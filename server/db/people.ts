@@ -204,3 +204,47 @@ export async function countPeople(db: Db): Promise<number> {
   const [row] = await db('people').count<{ n: number | string }[]>({ n: '*' });
   return Number(row?.n ?? 0);
 }
+
+/** A new password: every session begun before now ends (passport checks sessions_valid_after). */
+export async function setPasswordEndingSessions(db: Db, id: number, passwordHash: string): Promise<void> {
+  const now = nowIso();
+  await db('people')
+    .where({ id })
+    .update({ password_hash: passwordHash, sessions_valid_after: now, updated_at: now });
+  forgetPerson(db, id);
+}
+
+export async function markEmailConfirmed(db: Db, id: number): Promise<PersonRow | undefined> {
+  const now = nowIso();
+  const rows = await db('people')
+    .where({ id })
+    .update({ email_confirmed_at: db.raw('coalesce(email_confirmed_at, ?)', [now]), updated_at: now })
+    .returning('*');
+  forgetPerson(db, id);
+  return rows[0] ? toPerson(rows[0]) : undefined;
+}
+
+/**
+ * Deletes an account as privacy law expects: the e-mail address, name, password and consents go, every
+ * session ends; the row stays so that the person's verdicts remain in the science record, anonymously.
+ */
+export async function anonymisePerson(db: Db, id: number): Promise<void> {
+  const now = nowIso();
+  await db.transaction(async (trx) => {
+    await trx('people').where({ id }).update({
+      email: null,
+      display_name: 'Deleted account',
+      password_hash: null,
+      newsletter_opt_in: false,
+      newsletter_opt_in_at: null,
+      credit_by_name: false,
+      email_confirmed_at: null,
+      sessions_valid_after: now,
+      deleted_at: now,
+      updated_at: now,
+    });
+    await trx('api_tokens').where({ person_id: id }).delete();
+    await trx('email_tokens').where({ person_id: id }).delete();
+  });
+  forgetPerson(db, id);
+}

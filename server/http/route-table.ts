@@ -1,5 +1,6 @@
 import type { AppDeps } from './app-deps';
 import type { AnyRouteDef } from './define-route';
+import { adminOutboxRoutes } from './routes/admin-outbox';
 import { adminPeopleRoutes } from './routes/admin-people';
 import { auditRoutes } from './routes/audit';
 import { authRoutes } from './routes/auth';
@@ -20,6 +21,7 @@ export function routeTable(deps: AppDeps): AnyRouteDef[] {
     ...healthRoutes(deps),
     ...authRoutes(deps),
     ...adminPeopleRoutes(deps),
+    ...adminOutboxRoutes(deps),
     ...jobRoutes(deps),
     ...tokenRoutes(deps),
     ...campaignRoutes(deps),

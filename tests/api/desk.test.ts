@@ -229,6 +229,7 @@ describe('the volunteer audit', () => {
       note: 'Please take your time',
     });
     expect(warned.status).toBe(201);
+    // The bare test app has no queues, so nothing is mailed (tests/api/mail.test.ts sends one).
     expect(warned.body).toEqual({ recorded: true, emailed: false });
     expect(await auditCount('volunteer.warned')).toBe(1);
 

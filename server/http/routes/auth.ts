@@ -1,7 +1,15 @@
 import type { Request } from 'express';
 import { z } from 'zod';
+import { enqueue } from '../../../worker/queues';
 import { csrf } from '../../auth/csrf';
 import type { PersonRow } from '../../db/people';
+import {
+  confirmAddress,
+  deleteOwnAccount,
+  requestPasswordReset,
+  resendAddressConfirmation,
+  resetPassword,
+} from '../../services/auth/account-mail';
 import { signUp } from '../../services/auth/sign-up';
 import { claimGuestVerdicts } from '../../services/deck/verdicts';
 import { toPersonView } from '../../services/people/person-view';
@@ -33,6 +41,9 @@ const ownAccountChange = z
   })
   .strict()
   .refine((change) => Object.keys(change).length > 0, { message: 'Give at least one change', path: ['_'] });
+
+const password = signUpBody.shape.password;
+const token = z.string('The link has no token').min(20, 'The link is not whole').max(200);
 
 const signInBody = z.object({
   email: z.string('Enter your e-mail address').trim().min(1, 'Enter your e-mail address').max(254),
@@ -78,6 +89,8 @@ export const authRoutes = (deps: AppDeps) => [
     handle: async ({ req, body }) => {
       const person = await signUp(deps.db, body);
       await logIn(req, person, deps);
+      // The confirmation link goes by the mail queue; an account works before it is confirmed.
+      if (deps.queues) await enqueue(deps.queues, 'mail', 'confirm-address', { personId: person.id });
       return { person: toPersonView(person) };
     },
   }),
@@ -123,5 +136,55 @@ export const authRoutes = (deps: AppDeps) => [
     handle: async ({ person, body }) => ({
       person: toPersonView(await updateOwnAccount(deps.db, person!.id, body)),
     }),
+  }),
+  defineRoute({
+    method: 'delete',
+    path: '/auth/me',
+    access: 'signed-in',
+    summary:
+      'Delete your account: e-mail, name and sign-in go, verdicts stay anonymously; needs your password',
+    body: z.object({ password: z.string('Enter your password').min(1, 'Enter your password').max(1024) }),
+    handle: async ({ req, res, person, body }) => {
+      const answer = await deleteOwnAccount(deps.db, person!, body.password);
+      await new Promise<void>((resolve) => req.logout(() => resolve()));
+      await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
+      res.clearCookie(deps.sessionCookie, { path: '/' });
+      return answer;
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/auth/password-reset',
+    access: 'public',
+    summary:
+      'Ask for a password-reset link; the answer is the same whether or not an account has the address',
+    body: z.object({ email }),
+    status: 202,
+    handle: ({ body }) => requestPasswordReset(deps.queues, body.email),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/auth/password-reset/confirm',
+    access: 'public',
+    summary:
+      'Choose a new password with a reset link’s token (single use, 1 h); every session of the account ends',
+    body: z.object({ token, password }),
+    handle: ({ body }) => resetPassword(deps.db, body.token, body.password),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/auth/confirm-email',
+    access: 'public',
+    summary: 'Confirm an e-mail address with the token from the confirmation mail (valid 24 h)',
+    body: z.object({ token }),
+    handle: async ({ body }) => ({ person: toPersonView(await confirmAddress(deps.db, body.token)) }),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/auth/confirm-email/resend',
+    access: 'signed-in',
+    summary: 'Send the address-confirmation link again',
+    status: 202,
+    handle: ({ person }) => resendAddressConfirmation(deps.queues, person!),
   }),
 ];

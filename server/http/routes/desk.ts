@@ -143,7 +143,8 @@ export const deskRoutes = (deps: AppDeps) => {
       params: idParams,
       body: noteRequired(2_000),
       status: 201,
-      handle: ({ params, body, person }) => recordWarning(deps.db, person!, params.id, body.note),
+      handle: ({ params, body, person }) =>
+        recordWarning(deps.db, deps.queues, person!, params.id, body.note),
     }),
   ];
 };

@@ -1,3 +1,4 @@
+import { enqueue, type Queues } from '../../../worker/queues';
 import { appendAudit } from '../../db/audit-log';
 import {
   type AuditPerson,
@@ -218,10 +219,16 @@ export async function clearFlag(
 }
 
 /**
- * A warning to a volunteer. Until Dipdeck sends e-mail (the e-mail issue), the warning is recorded on
- * the audit log so that the next moderator sees it; the answer says it was not e-mailed.
+ * A warning to a volunteer: on the audit log, so that the next moderator sees it, and e-mailed to the
+ * volunteer by the mail queue (`emailed` says it was queued; a person without an address gets none).
  */
-export async function recordWarning(db: Db, moderator: PersonRow, personId: number, note: string) {
+export async function recordWarning(
+  db: Db,
+  queues: Queues | undefined,
+  moderator: PersonRow,
+  personId: number,
+  note: string,
+) {
   await oneVolunteer(db, personId);
   await appendAudit(db, {
     actorId: moderator.id,
@@ -230,5 +237,8 @@ export async function recordWarning(db: Db, moderator: PersonRow, personId: numb
     entityId: personId,
     note,
   });
-  return { recorded: true, emailed: false };
+  const person = await findPersonById(db, personId);
+  const mailable = Boolean(queues && person?.email && !person.deletedAt);
+  if (mailable) await enqueue(queues!, 'mail', 'moderator-warning', { personId, note });
+  return { recorded: true, emailed: mailable };
 }

@@ -13,6 +13,7 @@ import { migrateLatest } from '../../../server/db/migrate';
 import type { PersonRow } from '../../../server/db/people';
 import { createApp } from '../../../server/http/app';
 import { createLogger } from '../../../server/logger';
+import { createMailer, type Mailer } from '../../../server/mail/mailer';
 import { createQueues, type Queues } from '../../../worker/queues';
 import { createRedisConnection } from '../../../worker/redis-connection';
 import { startProcessors } from '../../../worker/start-processors';
@@ -26,6 +27,8 @@ export interface TestApp {
   dataDir: string;
   /** Embedded queues with the real processors running, when asked for. */
   queues: Queues | undefined;
+  /** With queues: the mailer their mail jobs use, sending to a real local SMTP catcher. */
+  mailer: Mailer | undefined;
 }
 
 export interface TestAppOptions {
@@ -41,17 +44,21 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
   const db = createDb(config);
   await migrateLatest(db);
   let queues: Queues | undefined;
+  let mailer: Mailer | undefined;
   if (options.queues) {
+    const logger = createLogger(config);
     queues = createQueues(createRedisConnection({ redisUrl: undefined }, `api-${randomUUID()}`));
-    await startProcessors(queues, { config, db, logger: createLogger(config), queues });
+    mailer = await createMailer(config, db, logger);
+    await startProcessors(queues, { config, db, logger, queues, mailer });
   }
   const { app } = createApp({ config, db, queues });
   afterAll(async () => {
     await queues?.close();
+    await mailer?.close();
     await db.destroy();
     fs.rmSync(dataDir, { recursive: true, force: true });
   });
-  return { app, db, config, dataDir, queues };
+  return { app, db, config, dataDir, queues, mailer };
 }
 
 export type Agent = ReturnType<typeof request.agent>;
@@ -91,9 +98,10 @@ export class Browser {
     return this.agent.patch(url).set('X-CSRF-Token', token).send(body);
   }
 
-  async delete(url: string) {
+  async delete(url: string, body?: object) {
     const token = await this.csrf();
-    return this.agent.delete(url).set('X-CSRF-Token', token);
+    const call = this.agent.delete(url).set('X-CSRF-Token', token);
+    return body === undefined ? call : call.send(body);
   }
 
   async signIn(email: string, password = TEST_PASSWORD) {

@@ -209,7 +209,7 @@ function WarningForm({ volunteer, onClose, onOutcome }: FormProps) {
             tone: 'success',
             text: result.emailed
               ? `Warning recorded and e-mailed to ${volunteer.displayName}.`
-              : `Warning for ${volunteer.displayName} recorded in the audit log. It was not e-mailed: e-mailing warnings comes with a later release.`,
+              : `Warning for ${volunteer.displayName} recorded in the audit log. It was not e-mailed: the account has no e-mail address.`,
           }),
         onError: (error) => setFailed(failure(error)),
       },

@@ -12,7 +12,7 @@ afterAll(async () => {
   fs.rmSync(dir, { recursive: true, force: true });
 });
 
-const MIGRATION_COUNT = 6;
+const MIGRATION_COUNT = 7;
 
 const EXPECTED_TABLES = [
   'api_tokens',
@@ -23,8 +23,10 @@ const EXPECTED_TABLES = [
   'deliveries',
   'dip_finders',
   'dips',
+  'email_tokens',
   'flag_clearances',
   'light_curves',
+  'mail_messages',
   'newsletters',
   'observatories',
   'people',
