@@ -14,6 +14,7 @@ import { jobRoutes } from './routes/jobs';
 import { labRoutes } from './routes/lab';
 import { openApiRoutes } from './routes/openapi';
 import { tokenRoutes } from './routes/tokens';
+import { unsubscribeRoutes } from './routes/unsubscribe';
 
 /** Every API route, with its access rule. The authorisation tests and the API reference read this. */
 export function routeTable(deps: AppDeps): AnyRouteDef[] {
@@ -31,6 +32,7 @@ export function routeTable(deps: AppDeps): AnyRouteDef[] {
     ...deckRoutes(deps),
     ...deskRoutes(deps),
     ...auditRoutes(deps),
+    ...unsubscribeRoutes(deps),
   ];
   return [...routes, ...openApiRoutes(deps, () => routes)];
 }
