@@ -1,7 +1,9 @@
 import type { Knex } from 'knex';
 
-// Mail: what the embedded mail catcher received (the Admin outbox), and the single-use tokens behind
-// address-confirmation and password-reset links (only their hashes are stored).
+// Mail: what the embedded mail catcher received (the Admin outbox), the single-use tokens behind
+// address-confirmation and password-reset links (only their hashes are stored), and what a newsletter
+// needs beyond the first data model: remote images allowed or not, and the recipients fixed when it
+// was sent (so that progress is counted against them).
 
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.createTable('mail_messages', (t) => {
@@ -27,9 +29,17 @@ export async function up(knex: Knex): Promise<void> {
     t.timestamp('created_at', { useTz: true }).notNullable().defaultTo(knex.fn.now());
     t.index(['person_id', 'purpose']);
   });
+  await knex.schema.alterTable('newsletters', (t) => {
+    t.boolean('allow_remote_images').notNullable().defaultTo(false);
+    t.json('recipient_ids').nullable();
+    t.text('last_error').nullable();
+  });
 }
 
 export async function down(knex: Knex): Promise<void> {
+  await knex.schema.alterTable('newsletters', (t) => {
+    t.dropColumns('allow_remote_images', 'recipient_ids', 'last_error');
+  });
   await knex.schema.dropTableIfExists('email_tokens');
   await knex.schema.dropTableIfExists('mail_messages');
 }

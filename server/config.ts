@@ -22,6 +22,7 @@ const envSchema = z.object({
     .string()
     .regex(/^smtps?:\/\//, 'SMTP_URL must be an smtp:// or smtps:// URL')
     .optional(),
+  MAIL_RATE_PER_S: z.coerce.number().min(0.1).max(1_000).default(10),
   MAIL_FROM: z.string().trim().min(3).max(320).default('Dipdeck <dipdeck@localhost>'),
   SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters').optional(),
   PUBLIC_URL: z.url().optional(),
@@ -50,6 +51,8 @@ export interface Config {
   smtpUrl: string | undefined;
   /** The From of every mail Dipdeck sends. */
   mailFrom: string;
+  /** Newsletter messages per second at most. */
+  mailRatePerSecond: number;
   sessionSecret: string | undefined;
   publicUrl: string;
   demo: boolean;
@@ -87,6 +90,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     redisUrl: e.REDIS_URL,
     smtpUrl: e.SMTP_URL,
     mailFrom: e.MAIL_FROM,
+    mailRatePerSecond: e.MAIL_RATE_PER_S,
     sessionSecret: e.SESSION_SECRET,
     publicUrl: (e.PUBLIC_URL ?? `http://localhost:${e.PORT}`).replace(/\/$/, ''),
     demo: e.DIPDECK_DEMO,

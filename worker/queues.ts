@@ -42,6 +42,13 @@ export const JOB_DATA = {
     'password-reset': z.object({ email: z.string().max(254) }),
     /** A moderator's warning to a volunteer, with the moderator's note. */
     'moderator-warning': z.object({ personId: z.number().int().positive(), note: z.string().max(2_000) }),
+    /** A newsletter to its audience (one job per newsletter: its id is the job id). */
+    newsletter: z.object({ newsletterId: z.number().int().positive() }),
+    /** A newsletter's test copy to the person who asked, with their own personal fields. */
+    'newsletter-test': z.object({
+      newsletterId: z.number().int().positive(),
+      personId: z.number().int().positive(),
+    }),
   },
   housekeeping: {
     sweep: z.object({}),

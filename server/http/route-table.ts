@@ -12,6 +12,7 @@ import { exportRoutes } from './routes/exports';
 import { healthRoutes } from './routes/health';
 import { jobRoutes } from './routes/jobs';
 import { labRoutes } from './routes/lab';
+import { newsletterRoutes } from './routes/newsletters';
 import { openApiRoutes } from './routes/openapi';
 import { tokenRoutes } from './routes/tokens';
 import { unsubscribeRoutes } from './routes/unsubscribe';
@@ -33,6 +34,7 @@ export function routeTable(deps: AppDeps): AnyRouteDef[] {
     ...deskRoutes(deps),
     ...auditRoutes(deps),
     ...unsubscribeRoutes(deps),
+    ...newsletterRoutes(deps),
   ];
   return [...routes, ...openApiRoutes(deps, () => routes)];
 }

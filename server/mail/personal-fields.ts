@@ -14,7 +14,7 @@ export interface PersonalFields {
   verdictsThisMonth: number;
   dipsCredited: number;
   candidatesCredited: number;
-  /** The campaign the volunteer gave most verdicts to this month; null before their first verdict. */
+  /** The campaign the volunteer gave most verdicts to; null before their first verdict. */
   topCampaign: string | null;
 }
 
