@@ -14,6 +14,8 @@ import { paths } from '@/config/paths';
 const lab = () => import('@/app/routes/lab');
 const admin = () => import('@/app/routes/admin');
 const desk = () => import('@/app/routes/desk');
+// Pages reached from links in mail (reset a password, confirm an address): rare, so kept out of the entry.
+const accountLinks = () => import('@/app/routes/account-links');
 
 export const router = createBrowserRouter([
   {
@@ -25,6 +27,18 @@ export const router = createBrowserRouter([
       { index: true, Component: HomeRoute },
       { path: paths.signIn.path, Component: SignInRoute },
       { path: paths.signUp.path, Component: SignUpRoute },
+      {
+        path: paths.passwordReset.path,
+        lazy: () => accountLinks().then((module) => ({ Component: module.PasswordResetRoute })),
+      },
+      {
+        path: paths.passwordResetConfirm.path,
+        lazy: () => accountLinks().then((module) => ({ Component: module.PasswordResetConfirmRoute })),
+      },
+      {
+        path: paths.confirmEmail.path,
+        lazy: () => accountLinks().then((module) => ({ Component: module.ConfirmEmailRoute })),
+      },
       { path: paths.deck.path, Component: DeckRoute },
       {
         path: paths.record.path,
@@ -108,6 +122,14 @@ export const router = createBrowserRouter([
           {
             path: paths.adminQueues.path,
             lazy: () => admin().then((module) => ({ Component: module.AdminQueuesRoute })),
+          },
+          {
+            path: paths.adminOutbox.path,
+            lazy: () => admin().then((module) => ({ Component: module.AdminOutboxRoute })),
+          },
+          {
+            path: paths.adminOutboxMessage.path,
+            lazy: () => admin().then((module) => ({ Component: module.AdminOutboxMessageRoute })),
           },
         ],
       },

@@ -32,6 +32,16 @@ export const paths = {
   home: { path: '/', getHref: () => '/' },
   signIn: { path: '/sign-in', getHref: (redirectTo?: string) => withRedirect('/sign-in', redirectTo) },
   signUp: { path: '/sign-up', getHref: (redirectTo?: string) => withRedirect('/sign-up', redirectTo) },
+  /** Asks for a link to choose a new password; the link in the mail opens `passwordResetConfirm`. */
+  passwordReset: { path: '/password-reset', getHref: () => '/password-reset' },
+  passwordResetConfirm: {
+    path: '/password-reset/confirm',
+    getHref: (token: string) => `/password-reset/confirm?token=${encodeURIComponent(token)}`,
+  },
+  confirmEmail: {
+    path: '/confirm-email',
+    getHref: (token: string) => `/confirm-email?token=${encodeURIComponent(token)}`,
+  },
   deck: { path: '/deck', getHref: () => '/deck' },
   record: { path: '/record', getHref: () => '/record' },
   /** The Desk's home is its split queue; `campaign` and `order` filter and order it. */
@@ -79,6 +89,15 @@ export const paths = {
   admin: { path: '/admin', getHref: () => '/admin' },
   adminPeople: { path: '/admin/people', getHref: () => '/admin/people' },
   adminQueues: { path: '/admin/queues', getHref: () => '/admin/queues' },
+  /** The mail the local mail catcher received, newest first; `page` counts from 1. */
+  adminOutbox: {
+    path: '/admin/outbox',
+    getHref: (page = 1) => (page > 1 ? `/admin/outbox?page=${page}` : '/admin/outbox'),
+  },
+  adminOutboxMessage: {
+    path: '/admin/outbox/:messageId',
+    getHref: (messageId: number) => `/admin/outbox/${messageId}`,
+  },
 } as const;
 
 export const apiPaths = {
@@ -87,12 +106,18 @@ export const apiPaths = {
   signIn: () => `${env.VITE_API_BASE}/auth/sign-in`,
   signUp: () => `${env.VITE_API_BASE}/auth/sign-up`,
   signOut: () => `${env.VITE_API_BASE}/auth/sign-out`,
+  passwordReset: () => `${env.VITE_API_BASE}/auth/password-reset`,
+  passwordResetConfirm: () => `${env.VITE_API_BASE}/auth/password-reset/confirm`,
+  confirmEmail: () => `${env.VITE_API_BASE}/auth/confirm-email`,
+  confirmEmailResend: () => `${env.VITE_API_BASE}/auth/confirm-email/resend`,
   people: () => `${env.VITE_API_BASE}/admin/people`,
   person: (id: number) => `${env.VITE_API_BASE}/admin/people/${id}`,
   queues: () => `${env.VITE_API_BASE}/admin/queues`,
   jobs: () => `${env.VITE_API_BASE}/admin/jobs`,
   // Job ids carry their queue ("mail:12"), so the id is encoded to stay one path segment whatever it holds.
   retryJob: (id: string) => `${env.VITE_API_BASE}/admin/jobs/${encodeURIComponent(id)}/retry`,
+  outbox: () => `${env.VITE_API_BASE}/admin/outbox`,
+  outboxMessage: (id: number) => `${env.VITE_API_BASE}/admin/outbox/${id}`,
   campaigns: () => `${env.VITE_API_BASE}/campaigns`,
   campaign: (id: number) => `${env.VITE_API_BASE}/campaigns/${id}`,
   campaignTargets: (id: number) => `${env.VITE_API_BASE}/campaigns/${id}/targets`,

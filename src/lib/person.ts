@@ -19,6 +19,7 @@ export const personSchema = z.object({
   suspended: z.boolean(),
   newsletterOptIn: z.boolean(),
   creditByName: z.boolean(),
+  emailConfirmed: z.boolean(),
   createdAt: z.string(),
 });
 

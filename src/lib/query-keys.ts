@@ -17,6 +17,11 @@ export interface JobListParams {
   limit: number;
 }
 
+export interface OutboxListParams {
+  limit: number;
+  offset: number;
+}
+
 export interface TargetListParams {
   campaignId: number;
   q: string;
@@ -87,6 +92,12 @@ export const queryKeys = {
   jobs: {
     all: () => ['jobs'] as const,
     list: (params: JobListParams) => ['jobs', params] as const,
+  },
+  // The list and each message share the resource, so one refresh reaches both.
+  outbox: {
+    all: () => ['outbox'] as const,
+    list: (params: OutboxListParams) => ['outbox', params] as const,
+    detail: (id: number) => ['outbox', { id }] as const,
   },
   // A campaign's counts change with every upload, so uploads invalidate 'campaigns' as a whole.
   campaigns: {

@@ -1,7 +1,9 @@
-import { Navigate, Outlet, useOutletContext } from 'react-router-dom';
+import { Navigate, Outlet, useOutletContext, useParams, useSearchParams } from 'react-router-dom';
 import { RequireArea } from '@/app/require-area';
 import { paths } from '@/config/paths';
 import { AdminNav } from '@/features/admin/components/admin-nav';
+import { OutboxAdmin } from '@/features/admin/components/outbox-admin';
+import { OutboxMessagePage } from '@/features/admin/components/outbox-message';
 import { PeopleAdmin } from '@/features/admin/components/people-admin';
 import { QueuesAdmin } from '@/features/admin/components/queues-admin';
 import type { Person } from '@/lib/person';
@@ -34,4 +36,32 @@ export function AdminPeopleRoute() {
 
 export function AdminQueuesRoute() {
   return <QueuesAdmin />;
+}
+
+/** The page lives in the address, so Back from a message returns to the page it was opened from. */
+export function AdminOutboxRoute() {
+  const [search, setSearch] = useSearchParams();
+  const asked = Number(search.get('page') ?? 1);
+  const page = Number.isInteger(asked) && asked >= 1 ? asked : 1;
+  return (
+    <OutboxAdmin
+      page={page}
+      onPage={(next) =>
+        setSearch((current) => {
+          const updated = new URLSearchParams(current);
+          if (next > 1) updated.set('page', String(next));
+          else updated.delete('page');
+          return updated;
+        })
+      }
+    />
+  );
+}
+
+export function AdminOutboxMessageRoute() {
+  const { messageId } = useParams();
+  const id = Number(messageId);
+  if (!Number.isInteger(id) || id < 1) return <Navigate to={paths.adminOutbox.getHref()} replace />;
+  // Keyed, so moving to another message starts from that message's own default view.
+  return <OutboxMessagePage key={id} messageId={id} />;
 }

@@ -1,3 +1,6 @@
+import { useLocation } from 'react-router-dom';
+import { z } from 'zod';
+import { Alert } from '@/components/alert';
 import { ButtonLink } from '@/components/button';
 import { LightCurveSketch } from '@/components/light-curve-sketch';
 import { paths } from '@/config/paths';
@@ -18,12 +21,27 @@ const steps = [
   },
 ];
 
+const noticeStateSchema = z.object({ notice: z.string() });
+
+/** Navigation state that shows a one-line notice above the home page (after deleting an account, say). */
+export function homeNotice(notice: string): z.infer<typeof noticeStateSchema> {
+  return { notice };
+}
+
 export function HomeRoute() {
   const me = useMe();
   const signedIn = Boolean(me.data);
+  const location = useLocation();
+  // History state survives reloads and can hold anything another page put there: read it defensively.
+  const notice = noticeStateSchema.safeParse(location.state).data?.notice;
 
   return (
     <div className="flex flex-col gap-16 md:gap-24">
+      {notice ? (
+        <div className="-mb-8 md:-mb-16">
+          <Alert tone="success">{notice}</Alert>
+        </div>
+      ) : null}
       <section className="grid items-center gap-10 lg:grid-cols-[minmax(0,1.05fr)_minmax(0,1fr)] lg:gap-14">
         <div className="flex flex-col gap-6">
           <p className="tabular text-xs font-medium uppercase tracking-[0.16em] text-amber-ink">

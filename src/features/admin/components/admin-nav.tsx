@@ -4,6 +4,7 @@ import { paths } from '@/config/paths';
 const sections = [
   { label: 'People', href: paths.adminPeople.getHref() },
   { label: 'Queues', href: paths.adminQueues.getHref() },
+  { label: 'Outbox', href: paths.adminOutbox.getHref() },
 ] as const;
 
 /** Admin's own sections: links rather than tabs, so each section has an address to share and reload. */

@@ -11,6 +11,11 @@ export async function signOut(): Promise<void> {
 // rather than to the sign-in form (whatever order the navigation and the cache update land in).
 let signedOutOnPurposeAt = 0;
 
+/** Records a sign-out the person chose (signing out, deleting the account), for `signedOutJustNow`. */
+export function markSignedOutOnPurpose(): void {
+  signedOutOnPurposeAt = Date.now();
+}
+
 /** True for a few seconds after a deliberate sign-out. Reading it changes nothing, so renders stay pure. */
 export function signedOutJustNow(): boolean {
   return Date.now() - signedOutOnPurposeAt < 3_000;
@@ -27,7 +32,7 @@ export function useSignOut() {
   return useMutation({
     mutationFn: signOut,
     onSuccess: () => {
-      signedOutOnPurposeAt = Date.now();
+      markSignedOutOnPurpose();
       forgetSignedInPerson(queryClient);
     },
   });

@@ -75,6 +75,12 @@ export function SignInForm({ redirectTo, onSignedIn }: SignInFormProps) {
           onChange={(event) => setPassword(event.target.value)}
           error={fieldErrors.password}
         />
+        <Link
+          to={paths.passwordReset.getHref()}
+          className="-mt-3 flex min-h-target items-center self-start text-sm font-medium text-ink underline underline-offset-4"
+        >
+          Forgot your password?
+        </Link>
         <Button type="submit" busy={signIn.isPending} className="w-full">
           Sign in
         </Button>

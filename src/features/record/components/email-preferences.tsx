@@ -1,7 +1,9 @@
 import { Alert } from '@/components/alert';
+import { Button } from '@/components/button';
 import { CheckboxField } from '@/components/checkbox-field';
 import { isApiError } from '@/lib/api-client';
 import type { Person } from '@/lib/person';
+import { useResendEmailConfirmation } from '../api/resend-email-confirmation';
 import { useUpdateOwnAccount } from '../api/update-own-account';
 
 /** Consent a person can give or take back at any time; each change takes effect at once. */
@@ -15,6 +17,7 @@ export function EmailPreferences({ person }: { person: Person }) {
         E-mail and credit
       </h2>
       <div className="flex flex-col gap-3 p-5">
+        {!person.emailConfirmed ? <ConfirmAddressNote email={person.email} /> : null}
         <CheckboxField
           label="Send me the newsletter"
           hint="An occasional e-mail from the science team about what volunteers found. Every newsletter has a one-click unsubscribe link."
@@ -37,5 +40,38 @@ export function EmailPreferences({ person }: { person: Person }) {
         ) : null}
       </div>
     </section>
+  );
+}
+
+/** Shown until the person follows the link in the address-confirmation mail. */
+function ConfirmAddressNote({ email }: { email: string }) {
+  const resend = useResendEmailConfirmation();
+  const error = resend.error;
+  return (
+    <div className="flex flex-col gap-3 rounded-md border-l-4 border-amber bg-amber-wash px-4 py-3">
+      <div className="flex flex-col gap-0.5 text-sm text-ink">
+        <p className="font-semibold">Your address is not confirmed yet</p>
+        <p>
+          We mailed a link to <span className="break-all font-medium">{email}</span> when you signed up. It
+          works for 24 hours; if it expired or never came, we can send another.
+        </p>
+      </div>
+      <Button
+        variant="secondary"
+        className="self-start"
+        busy={resend.isPending}
+        onClick={() => resend.mutate()}
+      >
+        Send the link again
+      </Button>
+      <div aria-live="polite" className="text-sm empty:hidden">
+        {resend.isSuccess ? <p className="font-medium text-success">{resend.data}</p> : null}
+        {error ? (
+          <p className="font-medium text-danger">
+            {isApiError(error) ? error.message : 'Could not send the link; try again.'}
+          </p>
+        ) : null}
+      </div>
+    </div>
   );
 }

@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import { Badge } from '@/components/badge';
 import { PageHeader } from '@/components/page-header';
 import { type Person, roleLabels } from '@/lib/person';
+import { DeleteAccount } from './delete-account';
 import { EmailPreferences } from './email-preferences';
 import { RecordSummary } from './record-summary';
 
@@ -12,7 +13,13 @@ function formatJoined(createdAt: string): string {
   return Number.isNaN(date.getTime()) ? createdAt : joinedFormat.format(date);
 }
 
-export function RecordPage({ person }: { person: Person }) {
+interface RecordPageProps {
+  person: Person;
+  /** After the account is deleted and its session ended on the server. */
+  onAccountDeleted: () => void;
+}
+
+export function RecordPage({ person, onAccountDeleted }: RecordPageProps) {
   return (
     <div className="flex flex-col gap-8">
       <PageHeader
@@ -33,7 +40,10 @@ export function RecordPage({ person }: { person: Person }) {
             <dl className="divide-y divide-line">
               <Row term="Display name">{person.displayName}</Row>
               <Row term="E-mail">
-                <span className="break-all">{person.email}</span>
+                <span className="flex flex-col items-end gap-0.5 text-right">
+                  <span className="break-all">{person.email}</span>
+                  {!person.emailConfirmed ? <Badge tone="amber">Not confirmed</Badge> : null}
+                </span>
               </Row>
               <Row term="Role">
                 <Badge tone="amber">{roleLabels[person.role]}</Badge>
@@ -57,6 +67,7 @@ export function RecordPage({ person }: { person: Person }) {
             </dl>
           </section>
           <EmailPreferences person={person} />
+          <DeleteAccount onDeleted={onAccountDeleted} />
         </div>
       </div>
     </div>

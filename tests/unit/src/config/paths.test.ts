@@ -36,3 +36,15 @@ describe('Lab paths', () => {
     expect(apiPaths.campaignLightCurves(4)).toBe('/api/campaigns/4/light-curves');
   });
 });
+
+describe('Mail paths', () => {
+  it('carries a token from a mail link encoded, and the outbox page only past the first', () => {
+    expect(paths.passwordResetConfirm.getHref('a+b/c')).toBe('/password-reset/confirm?token=a%2Bb%2Fc');
+    expect(paths.confirmEmail.getHref('t0k3n')).toBe('/confirm-email?token=t0k3n');
+    expect(paths.adminOutbox.getHref()).toBe('/admin/outbox');
+    expect(paths.adminOutbox.getHref(3)).toBe('/admin/outbox?page=3');
+    expect(paths.adminOutboxMessage.getHref(12)).toBe('/admin/outbox/12');
+    expect(apiPaths.outboxMessage(12)).toBe('/api/admin/outbox/12');
+    expect(apiPaths.confirmEmailResend()).toBe('/api/auth/confirm-email/resend');
+  });
+});

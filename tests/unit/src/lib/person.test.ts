@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { areas } from '@/config/areas';
-import { hasRole, type Role, roles } from '@/lib/person';
+import { hasRole, personSchema, type Role, roles } from '@/lib/person';
 
 function areasFor(role: Role): string[] {
   return areas.filter((area) => hasRole({ role }, area.minRole)).map((area) => area.label);
@@ -16,5 +16,23 @@ describe('areas by role', () => {
 
   it('orders roles from least to most able', () => {
     expect(roles).toEqual(['volunteer', 'moderator', 'scientist', 'admin']);
+  });
+});
+
+describe('personSchema', () => {
+  const person = {
+    id: 1,
+    email: 'ada@example.com',
+    displayName: 'Ada',
+    role: 'volunteer',
+    suspended: false,
+    newsletterOptIn: false,
+    creditByName: true,
+    createdAt: '2026-12-01T00:00:00.000Z',
+  };
+
+  it('reads whether the address is confirmed, and leaves it unknown when an older answer has no such field', () => {
+    expect(personSchema.parse({ ...person, emailConfirmed: false }).emailConfirmed).toBe(false);
+    expect(personSchema.parse(person).emailConfirmed).toBeUndefined();
   });
 });

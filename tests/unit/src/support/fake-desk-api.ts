@@ -8,6 +8,7 @@ export const fakeModerator = {
   suspended: false,
   newsletterOptIn: false,
   creditByName: false,
+  emailConfirmed: true,
   createdAt: '2026-12-01T00:00:00.000Z',
 } as const;
 

@@ -31,6 +31,7 @@ const volunteer: Person = {
   suspended: false,
   newsletterOptIn: false,
   creditByName: false,
+  emailConfirmed: true,
   createdAt: '2026-12-01T00:00:00.000Z',
 };
 
