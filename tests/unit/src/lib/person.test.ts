@@ -31,8 +31,9 @@ describe('personSchema', () => {
     createdAt: '2026-12-01T00:00:00.000Z',
   };
 
-  it('reads whether the address is confirmed, and leaves it unknown when an older answer has no such field', () => {
+  it('reads whether the address is confirmed, and refuses an answer without it', () => {
     expect(personSchema.parse({ ...person, emailConfirmed: false }).emailConfirmed).toBe(false);
-    expect(personSchema.parse(person).emailConfirmed).toBeUndefined();
+    expect(personSchema.parse({ ...person, emailConfirmed: true }).emailConfirmed).toBe(true);
+    expect(personSchema.safeParse(person).success).toBe(false);
   });
 });
