@@ -52,7 +52,9 @@ describe('signing up, in and out', () => {
     await expectNavigation(['Deck', 'My record']);
 
     await mainNav().getByRole('link', { name: 'My record', exact: true }).click();
-    await journey.page.getByText(email).waitFor();
+    await journey.page.locator('dl').getByText(email).waitFor();
+    // The address is not confirmed yet: the confirmation link was mailed at sign-up.
+    await journey.page.getByText('Not confirmed').first().waitFor();
     await journey.page.getByText('Not opted in').waitFor();
     // Consent can be given later, on My record, and takes effect at once.
     await journey.page.getByText('Send me the newsletter').click();

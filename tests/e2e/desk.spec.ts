@@ -147,7 +147,8 @@ describe('the Desk', () => {
       .getByRole('textbox', { name: 'Warning' })
       .fill('Please look at the whole snippet before answering.');
     await journey.page.getByRole('button', { name: 'Record warning' }).click();
-    await journey.page.getByText(`Warning for ${name} recorded in the audit log`).waitFor();
+    // Recorded on the audit log and e-mailed through the mail queue (the embedded mail catcher keeps it).
+    await journey.page.getByText(`Warning recorded and e-mailed to ${name}.`).waitFor();
 
     await journey.page.getByRole('button', { name: `Suspend ${name}` }).click();
     await journey.page.getByRole('textbox', { name: 'Reason' }).fill('Answers without looking');
