@@ -22,6 +22,10 @@ const envSchema = z.object({
     .string()
     .regex(/^smtps?:\/\//, 'SMTP_URL must be an smtp:// or smtps:// URL')
     .optional(),
+  QUEUE_PREFIX: z
+    .string()
+    .regex(/^[a-z0-9-]{1,40}$/, 'QUEUE_PREFIX is 1–40 lowercase letters, digits or dashes')
+    .default('dipdeck'),
   MAIL_RATE_PER_S: z.coerce.number().min(0.1).max(1_000).default(10),
   MAIL_FROM: z.string().trim().min(3).max(320).default('Dipdeck <dipdeck@localhost>'),
   SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters').optional(),
@@ -53,6 +57,8 @@ export interface Config {
   mailFrom: string;
   /** Newsletter messages per second at most. */
   mailRatePerSecond: number;
+  /** Key prefix of the queues in Redis: processes with the same prefix share the work. */
+  queuePrefix: string;
   sessionSecret: string | undefined;
   publicUrl: string;
   demo: boolean;
@@ -91,6 +97,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     smtpUrl: e.SMTP_URL,
     mailFrom: e.MAIL_FROM,
     mailRatePerSecond: e.MAIL_RATE_PER_S,
+    queuePrefix: e.QUEUE_PREFIX,
     sessionSecret: e.SESSION_SECRET,
     publicUrl: (e.PUBLIC_URL ?? `http://localhost:${e.PORT}`).replace(/\/$/, ''),
     demo: e.DIPDECK_DEMO,

@@ -15,7 +15,7 @@ async function main(): Promise<void> {
   const db = createDb(config);
   await prepareDatabase(db, config, logger);
 
-  const queues = createQueues(createRedisConnection(config));
+  const queues = createQueues(createRedisConnection(config), { prefix: config.queuePrefix });
   const mailer = queues.backend === 'embedded' ? await createMailer(config, db, logger) : null;
   if (mailer) {
     // The embedded store lives in this process, so this process is also the worker (and sends the mail).

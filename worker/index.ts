@@ -21,7 +21,7 @@ async function main(): Promise<void> {
   const logger = createLogger(config).child({ role: 'worker', pid: process.pid });
   const db = createDb(config);
   await migrateLatest(db);
-  const queues = createQueues(createRedisConnection(config));
+  const queues = createQueues(createRedisConnection(config), { prefix: config.queuePrefix });
   const mailer = await createMailer(config, db, logger);
   await startProcessors(queues, { config, db, logger, queues, mailer });
   logger.info({ mail: mailer.describe() }, 'worker ready');
