@@ -104,6 +104,27 @@ describe('newsletters', () => {
     expect((await browser.post(`/api/newsletters/${id}/send`, {})).status).toBe(409);
   });
 
+  it('waits until the time it was scheduled for, then goes out', async () => {
+    const person = await reader();
+    const { browser } = await signedIn(test, 'scientist');
+    const { body: created } = await browser.post('/api/newsletters', body);
+    const id = created.newsletter.id;
+    const at = new Date(Date.now() + 1_500).toISOString();
+    const scheduled = await browser.post(`/api/newsletters/${id}/send`, { at });
+    expect(scheduled.status).toBe(202);
+    expect(scheduled.body.newsletter.status).toBe('scheduled');
+    expect(Date.parse(scheduled.body.newsletter.scheduledFor)).toBeGreaterThan(Date.now());
+    expect(await mailMessagesTo(test.db, person.email!)).toHaveLength(0);
+    await eventually(
+      async () => (await browser.get(`/api/newsletters/${id}`)).body.newsletter.status === 'sent',
+      'sent',
+    );
+    expect(await mailMessagesTo(test.db, person.email!)).toHaveLength(1);
+    const bad = await browser.post(`/api/newsletters/${id}/send`, { at: 'tomorrow' });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields).toHaveProperty('at');
+  });
+
   it('sends a test copy to the writer only', async () => {
     const { browser, person } = await signedIn(test, 'scientist');
     const { body: created } = await browser.post('/api/newsletters', body);
