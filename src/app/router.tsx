@@ -101,6 +101,18 @@ export const router = createBrowserRouter([
             lazy: () => lab().then((module) => ({ Component: module.LabObservatoriesRoute })),
           },
           {
+            path: paths.labNewsletters.path,
+            lazy: () => lab().then((module) => ({ Component: module.LabNewslettersRoute })),
+          },
+          {
+            path: paths.labNewNewsletter.path,
+            lazy: () => lab().then((module) => ({ Component: module.LabNewNewsletterRoute })),
+          },
+          {
+            path: paths.labNewsletter.path,
+            lazy: () => lab().then((module) => ({ Component: module.LabNewsletterRoute })),
+          },
+          {
             path: paths.labTokens.path,
             lazy: () => lab().then((module) => ({ Component: module.LabTokensRoute })),
           },

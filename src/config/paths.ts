@@ -86,6 +86,12 @@ export const paths = {
   labObservatories: { path: '/lab/observatories', getHref: () => '/lab/observatories' },
   labTokens: { path: '/lab/tokens', getHref: () => '/lab/tokens' },
   labApiReference: { path: '/lab/api', getHref: () => '/lab/api' },
+  labNewsletters: { path: '/lab/newsletters', getHref: () => '/lab/newsletters' },
+  labNewNewsletter: { path: '/lab/newsletters/new', getHref: () => '/lab/newsletters/new' },
+  labNewsletter: {
+    path: '/lab/newsletters/:newsletterId',
+    getHref: (newsletterId: number) => `/lab/newsletters/${newsletterId}`,
+  },
   admin: { path: '/admin', getHref: () => '/admin' },
   adminPeople: { path: '/admin/people', getHref: () => '/admin/people' },
   adminQueues: { path: '/admin/queues', getHref: () => '/admin/queues' },
@@ -160,4 +166,9 @@ export const apiPaths = {
     `${env.VITE_API_BASE}/desk/volunteers/${id}/flags/${encodeURIComponent(code)}/clear`,
   deskVolunteerWarning: (id: number) => `${env.VITE_API_BASE}/desk/volunteers/${id}/warning`,
   audit: () => `${env.VITE_API_BASE}/audit`,
+  newsletters: () => `${env.VITE_API_BASE}/newsletters`,
+  newsletter: (id: number) => `${env.VITE_API_BASE}/newsletters/${id}`,
+  newsletterPreview: () => `${env.VITE_API_BASE}/newsletters/preview`,
+  newsletterTest: (id: number) => `${env.VITE_API_BASE}/newsletters/${id}/test`,
+  newsletterSend: (id: number) => `${env.VITE_API_BASE}/newsletters/${id}/send`,
 } as const;

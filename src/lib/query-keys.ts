@@ -79,6 +79,12 @@ export interface AuditListParams {
   offset: number;
 }
 
+export interface NewsletterPreviewParams {
+  headline: string;
+  bodyMarkdown: string;
+  allowRemoteImages: boolean;
+}
+
 export const queryKeys = {
   me: () => ['me', {}] as const,
   people: {
@@ -166,4 +172,12 @@ export const queryKeys = {
     all: () => ['audit'] as const,
     list: (params: AuditListParams) => ['audit', params] as const,
   },
+  // Sending changes the list and the newsletter together, so they share the resource.
+  newsletters: {
+    all: () => ['newsletters'] as const,
+    list: () => ['newsletters', {}] as const,
+    detail: (id: number) => ['newsletters', { id }] as const,
+  },
+  // A resource of its own: refreshing the newsletters need not render every preview again.
+  newsletterPreview: (content: NewsletterPreviewParams) => ['newsletter-preview', content] as const,
 } as const;

@@ -9,6 +9,9 @@ import { CandidateReviewPage } from '@/features/lab/components/candidate-review-
 import { FollowUpPage } from '@/features/lab/components/follow-up-page';
 import { LabNav } from '@/features/lab/components/lab-nav';
 import { NewCampaignPage } from '@/features/lab/components/new-campaign-page';
+import { NewNewsletterPage } from '@/features/lab/components/newsletters/new-newsletter-page';
+import { NewsletterPage } from '@/features/lab/components/newsletters/newsletter-page';
+import { NewslettersPage } from '@/features/lab/components/newsletters/newsletters-page';
 import { ObservatoriesPage } from '@/features/lab/components/observatories-page';
 import { SnippetBrowserPage } from '@/features/lab/components/snippet-browser-page';
 import { TargetPage } from '@/features/lab/components/target-page';
@@ -98,4 +101,21 @@ export function LabTokensRoute() {
 
 export function LabApiReferenceRoute() {
   return <ApiReferencePage />;
+}
+
+export function LabNewslettersRoute() {
+  return <NewslettersPage />;
+}
+
+export function LabNewNewsletterRoute() {
+  return <NewNewsletterPage />;
+}
+
+export function LabNewsletterRoute() {
+  const newsletterId = useIdParam('newsletterId');
+  return newsletterId === null ? (
+    <NotFoundRoute />
+  ) : (
+    <NewsletterPage key={newsletterId} newsletterId={newsletterId} />
+  );
 }

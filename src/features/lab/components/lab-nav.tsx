@@ -18,6 +18,11 @@ const sections = [
     matches: (pathname: string) => pathname.startsWith(paths.labObservatories.path),
   },
   {
+    label: 'Newsletters',
+    href: paths.labNewsletters.getHref(),
+    matches: (pathname: string) => pathname.startsWith(paths.labNewsletters.path),
+  },
+  {
     label: 'API tokens',
     href: paths.labTokens.getHref(),
     matches: (pathname: string) => pathname.startsWith(paths.labTokens.path),
