@@ -1,7 +1,10 @@
 // Transactional mail through the real local SMTP catcher (smtp-server, parsed with mailparser), and
 // what a person does with its links: confirm the address, reset the password, delete the account.
+import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { createCampaign } from '../../seeds/factories/campaigns';
+import { createSnippetFixtures } from '../../seeds/factories/snippets';
 import { mailMessagesTo } from '../../server/db/mail-messages';
 import { RESET_REQUESTED } from '../../server/services/auth/account-mail';
 import { eventually } from '../support/eventually';
@@ -174,6 +177,17 @@ describe('a moderator’s warning', () => {
 describe('deleting one’s own account', () => {
   it('needs the password, removes the e-mail and name, keeps the verdicts anonymously, and ends the session', async () => {
     const { browser, person } = await signedIn(test, 'volunteer');
+    const campaignId = await createCampaign(test.db, { status: 'live' });
+    const [snippetId] = (await createSnippetFixtures(test.db, campaignId, { targets: 1, real: 1 })).snippetIds
+      .real;
+    await test.db('verdicts').insert({
+      client_id: randomUUID(),
+      snippet_id: snippetId,
+      person_id: person.id,
+      answer: 'dip',
+      created_at: new Date().toISOString(),
+      updated_at: new Date().toISOString(),
+    });
     const wrong = await browser.delete('/api/auth/me', { password: 'not my password' });
     expect(wrong.status).toBe(400);
     expect(wrong.body.error.fields).toHaveProperty('password');
@@ -187,6 +201,8 @@ describe('deleting one’s own account', () => {
     expect(row).toMatchObject({ email: null, password_hash: null, display_name: 'Deleted account' });
     expect(row.deleted_at).not.toBeNull();
     expect(Boolean(row.newsletter_opt_in)).toBe(false);
+    // The verdict stays in the science record, tied to the anonymous row.
+    expect(await test.db('verdicts').where({ person_id: person.id }).count({ n: '*' })).toEqual([{ n: 1 }]);
     expect((await new Browser(test.app).signIn(person.email!)).status).toBe(401);
     // No link mailed to the old address can bring the account back.
     expect(

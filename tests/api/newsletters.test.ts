@@ -71,6 +71,8 @@ describe('newsletters', () => {
     const { browser } = await signedIn(test, 'scientist');
     const created = await browser.post('/api/newsletters', body);
     expect(created.status).toBe(201);
+    // Before sending, the page can say how many the audience holds.
+    expect(created.body.newsletter.audienceSize).toBe(readers.length);
     const id = created.body.newsletter.id;
     const sent = await browser.post(`/api/newsletters/${id}/send`, {});
     expect(sent.status).toBe(202);

@@ -33,8 +33,11 @@ async function view(db: Db, newsletter: NewsletterRow) {
   const recipients = newsletter.recipientIds?.length ?? null;
   const handled = counts.claimed + counts.sent + counts.failed + counts.skipped + counts.unknown;
   const { recipientIds: _ids, ...rest } = newsletter;
+  // Before sending, how many the audience holds now (it is fixed when sending starts).
+  const waiting = newsletter.status === 'draft' || newsletter.status === 'scheduled';
   return {
     ...rest,
+    audienceSize: waiting ? (await audienceIds(db, newsletter.audience)).length : recipients,
     unknownPlaceholders: unknownPlaceholders(`${newsletter.headline}\n${newsletter.bodyMarkdown}`),
     progress: {
       recipients,

@@ -95,6 +95,8 @@ export const newsletterSchema = z.object({
   updatedAt: z.string(),
   unknownPlaceholders: z.array(z.string()),
   progress: progressSchema,
+  /** How many the audience holds now (before sending), or the readers it was sent to. */
+  audienceSize: z.number().int().nonnegative().nullable(),
 });
 
 export type Newsletter = z.infer<typeof newsletterSchema>;

@@ -246,8 +246,11 @@ function SendNow({
       {confirming ? (
         <>
           <p className="text-base text-ink">
-            Send “{newsletter.headline}” now? It goes to: {audienceText(newsletter.audience, campaignName)}.
-            Each reader gets it once, and it cannot be called back.
+            Send “{newsletter.headline}” now? It goes to: {audienceText(newsletter.audience, campaignName)}
+            {newsletter.audienceSize !== null
+              ? ` — ${plural(newsletter.audienceSize, 'person', 'people')} at the moment`
+              : ''}
+            . Each reader gets it once, and it cannot be called back.
           </p>
           <div className="flex flex-wrap gap-3">
             <Button busy={send.isPending} onClick={() => send.mutate({ id: newsletter.id })}>
@@ -261,7 +264,9 @@ function SendNow({
       ) : (
         <>
           <p className="text-sm text-muted">
-            The audience is counted when sending starts; you see how many then.
+            {newsletter.audienceSize !== null
+              ? `The audience holds ${plural(newsletter.audienceSize, 'person', 'people')} now; it is fixed when sending starts.`
+              : 'The audience is fixed when sending starts.'}
           </p>
           <Button onClick={() => setConfirming(true)} className="w-fit">
             Send now…

@@ -35,6 +35,7 @@ function newsletter(over: Partial<Newsletter> = {}): Newsletter {
     createdAt: '2026-12-01T10:00:00.000Z',
     updatedAt: '2026-12-01T10:00:00.000Z',
     unknownPlaceholders: [],
+    audienceSize: 12,
     progress: {
       recipients: null,
       queued: 0,
@@ -218,7 +219,7 @@ describe('one newsletter', () => {
     renderAt('/lab/newsletters/5');
     fireEvent.click(await screen.findByRole('button', { name: 'Send now…' }));
     expect(sent.some((s) => s.path.endsWith('/send'))).toBe(false);
-    expect(screen.getByText(/It goes to: Everyone who opted in/)).toBeTruthy();
+    expect(screen.getByText(/It goes to: Everyone who opted in — 12 people at the moment/)).toBeTruthy();
     fireEvent.click(screen.getByRole('button', { name: 'Yes, send it now' }));
     expect(await screen.findByText(/On its way to 42 people/)).toBeTruthy();
     expect(sent.find((s) => s.path === '/api/newsletters/5/send')?.body).toEqual({});
