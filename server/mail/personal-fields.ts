@@ -31,7 +31,7 @@ export const PERSONAL_FIELDS: readonly { name: PersonalFieldName; description: s
   },
   {
     name: 'topCampaign',
-    description: 'The campaign the volunteer gave most verdicts to this month ("none yet" before any).',
+    description: 'The campaign the volunteer gave most verdicts to ("none yet" before any).',
   },
 ];
 

@@ -14,7 +14,7 @@ export const PERSONAL_FIELDS = [
   },
   {
     name: 'topCampaign',
-    description: 'The campaign the volunteer gave most verdicts to this month ("none yet" before any).',
+    description: 'The campaign the volunteer gave most verdicts to ("none yet" before any).',
   },
 ] as const;
 
