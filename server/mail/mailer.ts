@@ -9,6 +9,7 @@ import { type MailCatcher, startMailCatcher } from './mail-catcher';
 
 export interface OutgoingMail {
   to: string;
+  /** The e-mail's Subject header (RFC 5322): the open standard's word, not a Dipdeck term. */
   subject: string;
   html: string;
   text: string;

@@ -4,19 +4,13 @@ import { Alert } from '@/components/alert';
 import { ButtonLink } from '@/components/button';
 import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
+import { MailFrame } from '@/components/mail-frame';
 import { PageHeader } from '@/components/page-header';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
 import { paths } from '@/config/paths';
 import { isApiError } from '@/lib/api-client';
 import { useOutboxMessage } from '../api/get-outbox-message';
-import {
-  defaultView,
-  formatSize,
-  type OutboxMessage,
-  type OutboxView,
-  recipientsText,
-  sandboxedDocument,
-} from '../lib/outbox';
+import { defaultView, formatSize, type OutboxMessage, type OutboxView, recipientsText } from '../lib/outbox';
 import { formatReceived } from './outbox-admin';
 
 const viewLabels: Record<OutboxView, string> = { html: 'HTML', text: 'Plain text', headers: 'Headers' };
@@ -134,12 +128,10 @@ function HtmlView({ message }: { message: OutboxMessage }) {
         Links and images are not loaded here, and no script runs, so opening a message tells no one it was
         read.
       </p>
-      <iframe
-        // An empty sandbox: no scripts, no forms, no pop-ups, and an origin of its own, not Dipdeck's.
-        sandbox=""
-        srcDoc={sandboxedDocument(message.html)}
+      <MailFrame
+        html={message.html}
         title={`The HTML of “${message.subject || 'a message without subject'}”`}
-        className="h-[36rem] w-full rounded-lg border border-line bg-white"
+        className="h-[36rem]"
       />
     </div>
   );

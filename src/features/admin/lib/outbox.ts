@@ -38,24 +38,11 @@ export function formatSize(sizeBytes: number): string {
   return `${sizeFormat.format(sizeBytes / 1_000_000)} MB`;
 }
 
-/**
- * The policy put in front of a caught message's HTML. The iframe's empty sandbox already stops scripts,
- * forms and pop-ups and gives the document an origin of its own; this stops remote images, fonts and
- * style sheets too, so opening a message never tells a tracker (or a real address) that it was read.
- */
-export const messagePolicy =
-  "default-src 'none'; style-src 'unsafe-inline'; img-src data:; font-src data:; base-uri 'none'; form-action 'none'";
-
-/**
- * The document to give `<iframe sandbox="" srcdoc>`: the message's HTML behind a content security policy
- * and a base that sends links to a new window, which the sandbox refuses to open.
- */
-export function sandboxedDocument(html: string): string {
-  const guard = `<meta http-equiv="Content-Security-Policy" content="${messagePolicy}"><base target="_blank">`;
-  // The parser moves these into the head whatever follows; after a doctype, so the message keeps its mode.
-  const doctype = html.match(/^\s*<!doctype[^>]*>/i)?.[0] ?? '';
-  return `${doctype}${guard}${html.slice(doctype.length)}`;
-}
+// The Outbox shows a caught message's HTML in the app's one mail frame (src/lib/sandboxed-mail.ts).
+export {
+  mailFramePolicy as messagePolicy,
+  sandboxedMailDocument as sandboxedDocument,
+} from '@/lib/sandboxed-mail';
 
 export function recipientsText(to: readonly string[]): string {
   return to.length === 0 ? '(no recipients)' : to.join(', ');

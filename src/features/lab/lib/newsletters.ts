@@ -186,21 +186,8 @@ export function browserTimeZone(now = new Date()): string {
   return `UTC${sign}${String(Math.floor(abs / 60)).padStart(2, '0')}:${String(abs % 60).padStart(2, '0')}`;
 }
 
-// Nothing the message points at is fetched: no remote images, fonts or styles, no form, no base change.
-const previewPolicy =
-  "default-src 'none'; style-src 'unsafe-inline'; img-src data:; font-src data:; base-uri 'none'; form-action 'none'";
-
-/**
- * The document to give `<iframe sandbox="" srcdoc>`: the rendered newsletter behind a content security
- * policy, so opening the preview loads nothing from elsewhere, and a base that sends links to a new window,
- * which the sandbox refuses to open.
- */
-export function sandboxedPreview(html: string): string {
-  const guard = `<meta http-equiv="Content-Security-Policy" content="${previewPolicy}"><base target="_blank">`;
-  // The parser moves these into the head whatever follows; after a doctype, so the message keeps its mode.
-  const doctype = html.match(/^\s*<!doctype[^>]*>/i)?.[0] ?? '';
-  return `${doctype}${guard}${html.slice(doctype.length)}`;
-}
+// The preview uses the app's one mail frame (src/lib/sandboxed-mail.ts).
+export { sandboxedMailDocument as sandboxedPreview } from '@/lib/sandboxed-mail';
 
 /** How long typing must pause before the live preview asks the server again. */
 export const PREVIEW_DEBOUNCE_MS = 400;

@@ -1,6 +1,7 @@
 import { useId, useState } from 'react';
 import { Alert } from '@/components/alert';
-import { type NewsletterPreview as Preview, sandboxedPreview } from '../../lib/newsletters';
+import { MailFrame } from '@/components/mail-frame';
+import type { NewsletterPreview as Preview } from '../../lib/newsletters';
 
 type View = 'html' | 'text';
 const viewLabels: Record<View, string> = { html: 'As e-mail', text: 'Plain text' };
@@ -62,13 +63,7 @@ export function NewsletterPreviewPanel({ preview, updating }: { preview: Preview
       </p>
       <div id={panelId}>
         {view === 'html' ? (
-          <iframe
-            // An empty sandbox: no scripts, no forms, no pop-ups, and an origin of its own, not Dipdeck's.
-            sandbox=""
-            srcDoc={sandboxedPreview(preview.html)}
-            title={`Preview of “${preview.subject}”`}
-            className="h-[32rem] w-full rounded-lg border border-line bg-white"
-          />
+          <MailFrame html={preview.html} title={`Preview of “${preview.subject}”`} className="h-[32rem]" />
         ) : (
           <pre className="max-h-[32rem] overflow-auto rounded-lg border border-line bg-surface p-4 font-mono text-sm whitespace-pre-wrap break-words text-ink">
             {preview.text}
