@@ -1,6 +1,6 @@
 import type { AddressInfo } from 'node:net';
 import { createQueues } from '../worker/queues';
-import { createRedisConnection } from '../worker/redis-connection';
+import { createRedisClient, createRedisConnection } from '../worker/redis-connection';
 import { startProcessors } from '../worker/start-processors';
 import { ConfigError, loadConfig } from './config';
 import { createDb } from './db/knex';
@@ -22,7 +22,13 @@ async function main(): Promise<void> {
     await startProcessors(queues, { config, db, logger, queues, mailer });
   }
 
-  const { app } = createApp({ config, db, logger, queues });
+  // With Redis, the abuse limits count there, so that they hold across several server processes.
+  const rateLimitRedis = config.redisUrl
+    ? createRedisClient(config.redisUrl, (error) =>
+        logger.warn({ err: error }, 'rate-limit Redis: no connection'),
+      )
+    : undefined;
+  const { app } = createApp({ config, db, logger, queues, rateLimitRedis });
   const server = app.listen(config.port);
   await new Promise<void>((resolve, reject) => {
     server.once('listening', resolve);
@@ -44,12 +50,19 @@ async function main(): Promise<void> {
     stopping = true;
     logger.info({ signal }, 'shutting down');
     setTimeout(() => process.exit(1), 15_000).unref();
+    // A keep-alive connection whose client always sends its next request never falls idle, so close()
+    // alone waited out the 15 s above under load: every answer from now on closes its connection, and
+    // connections between two requests are closed as they appear.
+    server.prependListener('request', (_req, res) => res.setHeader('Connection', 'close'));
+    const closeIdle = setInterval(() => server.closeIdleConnections(), 100);
     await new Promise<void>((resolve) => {
       server.close(() => resolve());
       server.closeIdleConnections();
     });
+    clearInterval(closeIdle);
     await queues.close().catch((error: unknown) => logger.error({ err: error }, 'closing the queues failed'));
     await mailer?.close();
+    await rateLimitRedis?.quit().catch(() => rateLimitRedis.disconnect());
     await db.destroy();
     process.exit(0);
   };

@@ -4,6 +4,7 @@ import type { Config } from '../config';
 import type { Db } from '../db/knex';
 import type { Logger } from '../logger';
 import type { RescoreRequests } from '../services/consensus/request-rescore';
+import type { RateLimits } from './rate-limits';
 
 export type ComponentStatus = { status: 'ok' | 'down' | 'not_configured'; detail?: string };
 
@@ -16,6 +17,8 @@ export interface AppDeps {
   sessionCookie: string;
   /** The background queues, to enqueue work and report on jobs; absent in a bare test app. */
   queues: Queues | undefined;
+  /** The abuse limits, for the routes that use them (sign-in, sign-up, password reset, token use). */
+  rateLimits: RateLimits;
   /** Asks for a rescore of a campaign's changed snippets (coalesced; a no-op without queues). */
   rescoreRequests: RescoreRequests;
 }

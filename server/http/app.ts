@@ -1,5 +1,5 @@
 import express, { type Express } from 'express';
-import helmet from 'helmet';
+import type { Redis } from 'ioredis';
 import type { Queues } from '../../worker/queues';
 import { bearerAuthentication } from '../auth/bearer';
 import { createPassport } from '../auth/passport';
@@ -12,8 +12,10 @@ import { createRescoreRequests } from '../services/consensus/request-rescore';
 import type { AppDeps } from './app-deps';
 import { mountRoutes } from './define-route';
 import { apiNotFound, errorHandler } from './error-handler';
+import { createRateLimits, type RateLimitOptions } from './rate-limits';
 import { requestLog } from './request-log';
 import { routeTable } from './route-table';
+import { securityHeaders } from './security-headers';
 import { staticClient } from './static-client';
 
 export interface AppOptions {
@@ -21,6 +23,10 @@ export interface AppOptions {
   db: Db;
   logger?: Logger;
   queues?: Queues;
+  /** Where the abuse limits count: Redis (shared by every server process) or, absent, this process. */
+  rateLimitRedis?: Redis;
+  /** Other numbers for some abuse limits (tests). */
+  rateLimitOverrides?: RateLimitOptions['overrides'];
 }
 
 /** Builds the Express app without listening, so that tests drive it with supertest. */
@@ -35,19 +41,18 @@ export function createApp(options: AppOptions): { app: Express; deps: AppDeps } 
     sessionCookie: sessionCookieName(config),
     queues: options.queues,
     rescoreRequests: createRescoreRequests(options.queues, logger),
+    rateLimits: createRateLimits({
+      logger,
+      redis: options.rateLimitRedis,
+      prefix: config.queuePrefix,
+      overrides: options.rateLimitOverrides,
+    }),
   };
 
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxy ? 1 : false);
-  app.use(
-    helmet({
-      strictTransportSecurity: config.isProduction,
-      contentSecurityPolicy: {
-        directives: { 'upgrade-insecure-requests': config.isProduction ? [] : null },
-      },
-    }),
-  );
+  app.use(securityHeaders(config));
   app.use(requestLog(logger));
 
   const api = express.Router();
@@ -59,6 +64,7 @@ export function createApp(options: AppOptions): { app: Express; deps: AppDeps } 
   api.use(sessionMiddleware(config, db, resolveSessionSecret(config.sessionSecret, config.dataDir)));
   api.use(deps.passport.initialize());
   api.use(deps.passport.session());
+  api.use(deps.rateLimits.tokenFailuresPerIp, deps.rateLimits.tokenUsePerToken);
   api.use(bearerAuthentication(db, logger));
   mountRoutes(api, routeTable(deps));
   api.use(apiNotFound);

@@ -41,8 +41,20 @@ export const adminPeopleRoutes = (deps: AppDeps) => [
     summary: "Change a person's role, or suspend or restore their account",
     params: idParams,
     body: personChange,
-    handle: async ({ person, params, body }) => ({
-      person: toPersonView(await changePerson(deps.db, person!, params.id, body)),
-    }),
+    handle: async ({ person, params, body }) => {
+      const changed = await changePerson(deps.db, person!, params.id, body);
+      // A security event besides the audit-log entry, so that it reaches whatever watches the log.
+      deps.logger.warn(
+        {
+          event: 'person_changed',
+          actorId: person!.id,
+          personId: changed.id,
+          role: changed.role,
+          suspended: changed.suspendedAt !== null,
+        },
+        'role or suspension changed',
+      );
+      return { person: toPersonView(changed) };
+    },
   }),
 ];

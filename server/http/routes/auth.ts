@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { enqueue } from '../../../worker/queues';
 import { csrf } from '../../auth/csrf';
 import type { PersonRow } from '../../db/people';
+import { AppError } from '../../errors';
 import {
   confirmAddress,
   deleteOwnAccount,
@@ -16,6 +17,7 @@ import { toPersonView } from '../../services/people/person-view';
 import { updateOwnAccount } from '../../services/people/update-own-account';
 import type { AppDeps } from '../app-deps';
 import { defineRoute } from '../define-route';
+import { hashedAddress } from '../rate-limits';
 
 const email = z.email('Enter a valid e-mail address').max(254, 'At most 254 characters');
 
@@ -71,6 +73,16 @@ function authenticate(req: Request, deps: AppDeps): Promise<PersonRow> {
   });
 }
 
+// A security event: which address failed is logged as a hash, so that repeated attempts on one
+// account can be told apart in the log without the log holding the addresses people typed.
+function logSignInFailure(req: Request, deps: AppDeps, email: string, error: unknown): void {
+  const code = error instanceof AppError ? error.code : 'error';
+  deps.logger.warn(
+    { event: 'sign_in_failed', reason: code, ip: req.ip, address: hashedAddress(email) },
+    'sign-in failed',
+  );
+}
+
 export const authRoutes = (deps: AppDeps) => [
   defineRoute({
     method: 'get',
@@ -84,6 +96,7 @@ export const authRoutes = (deps: AppDeps) => [
     path: '/auth/sign-up',
     access: 'public',
     summary: 'Create a volunteer account and sign in',
+    before: [deps.rateLimits.signUpPerIp],
     body: signUpBody,
     status: 201,
     handle: async ({ req, body }) => {
@@ -100,9 +113,17 @@ export const authRoutes = (deps: AppDeps) => [
     access: 'public',
     summary: 'Sign in with e-mail and password',
     body: signInBody,
+    before: [
+      deps.rateLimits.signInPerIp,
+      deps.rateLimits.signInPerAddress,
+      deps.rateLimits.signInPerAddressAndIp,
+    ],
     handle: async ({ req, body }) => {
       req.body = body; // passport-local reads the trimmed values
-      const person = await authenticate(req, deps);
+      const person = await authenticate(req, deps).catch((error: unknown) => {
+        logSignInFailure(req, deps, body.email, error);
+        throw error;
+      });
       await logIn(req, person, deps);
       return { person: toPersonView(person) };
     },
@@ -160,6 +181,7 @@ export const authRoutes = (deps: AppDeps) => [
       'Ask for a password-reset link; the answer is the same whether or not an account has the address',
     body: z.object({ email }),
     status: 202,
+    before: [deps.rateLimits.passwordResetPerIp, deps.rateLimits.passwordResetPerAddress],
     handle: ({ body }) => requestPasswordReset(deps.queues, body.email),
   }),
   defineRoute({
@@ -169,6 +191,7 @@ export const authRoutes = (deps: AppDeps) => [
     summary:
       'Choose a new password with a reset link’s token (single use, 1 h); every session of the account ends',
     body: z.object({ token, password }),
+    before: [deps.rateLimits.emailTokenFailuresPerIp],
     handle: ({ body }) => resetPassword(deps.db, body.token, body.password),
   }),
   defineRoute({
@@ -177,6 +200,7 @@ export const authRoutes = (deps: AppDeps) => [
     access: 'public',
     summary: 'Confirm an e-mail address with the token from the confirmation mail (valid 24 h)',
     body: z.object({ token }),
+    before: [deps.rateLimits.emailTokenFailuresPerIp],
     handle: async ({ body }) => ({ person: toPersonView(await confirmAddress(deps.db, body.token)) }),
   }),
   defineRoute({
@@ -185,6 +209,7 @@ export const authRoutes = (deps: AppDeps) => [
     access: 'signed-in',
     summary: 'Send the address-confirmation link again',
     status: 202,
+    before: [deps.rateLimits.confirmationResendPerPerson],
     handle: ({ person }) => resendAddressConfirmation(deps.queues, person!),
   }),
 ];
