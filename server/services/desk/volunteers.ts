@@ -111,7 +111,8 @@ export async function volunteerAudit(db: Db, query: VolunteerAuditQuery) {
 
 async function oneVolunteer(db: Db, personId: number): Promise<VolunteerView> {
   const person = await findPersonById(db, personId);
-  if (!person || person.deletedAt) throw notFound('Volunteer');
+  // The Desk sees volunteers only: a staff member's id must not show their address or take a warning.
+  if (!person || person.deletedAt || person.role !== 'volunteer') throw notFound('Volunteer');
   const [row] = await auditRows(db, [
     {
       id: person.id,
