@@ -40,6 +40,7 @@ const envSchema = z.object({
     .default(72),
   SESSION_ABSOLUTE_DAYS: z.coerce.number().positive().max(365).default(30),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
+  SQLITE_BUSY_TIMEOUT_MS: z.coerce.number().int().min(0).max(600_000).default(5_000),
 });
 
 export type Environment = z.input<typeof envSchema>;
@@ -68,6 +69,8 @@ export interface Config {
   sessionIdleMs: number;
   sessionAbsoluteMs: number;
   logLevel: string;
+  /** How long a SQLite write waits for another connection's write lock before it gives up (503). */
+  sqliteBusyTimeoutMs: number;
 }
 
 export class ConfigError extends Error {
@@ -106,5 +109,6 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     sessionIdleMs: e.SESSION_IDLE_HOURS * 3_600_000,
     sessionAbsoluteMs: e.SESSION_ABSOLUTE_DAYS * 86_400_000,
     logLevel: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'silent' : 'info'),
+    sqliteBusyTimeoutMs: e.SQLITE_BUSY_TIMEOUT_MS,
   };
 }

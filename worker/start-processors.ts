@@ -40,6 +40,10 @@ export async function startProcessors(queues: Queues, ctx: ProcessorContext): Pr
         'job failed',
       ),
     );
+    // Which process ran a job, when several share the queues.
+    queue.on('completed', (job) =>
+      ctx.logger.debug({ queue: queue.name, jobId: job.id, attemptsMade: job.attemptsMade }, 'job completed'),
+    );
     queue.on('error', (error) => ctx.logger.error({ queue: queue.name, err: error }, 'queue error'));
     void queue.process('*', QUEUES[key].concurrency, processor);
   }

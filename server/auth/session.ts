@@ -28,6 +28,15 @@ class SessionStore extends ConnectSessionKnexStore {
   private readonly touchedAt = new Map<string, number>();
   private readonly recent = new Map<string, { json: string; expiresAt: number; readAt: number }>();
 
+  constructor(options: ConstructorParameters<typeof ConnectSessionKnexStore>[0]) {
+    super(options);
+    // The base store asks once whether its table exists and keeps the answer: a database away at that
+    // moment became a rejection nobody awaited and the failure of every later request. Our migrations
+    // make the table, so there is nothing to wait for.
+    this.ready.catch(() => {});
+    this.ready = Promise.resolve();
+  }
+
   private remember(sid: string, data: session.SessionData): void {
     if (this.recent.size >= 50_000) this.recent.clear();
     const expires = data.cookie?.expires;
@@ -91,7 +100,15 @@ class SessionStore extends ConnectSessionKnexStore {
     this.touchedAt.set(sid, now);
     const kept = this.recent.get(sid);
     if (kept && data.cookie?.expires) kept.expiresAt = new Date(data.cookie.expires).getTime();
-    return super.touch(sid, data, callback);
+    // The base store neither catches nor calls back on an error: the answer would never end, and the
+    // rejection nobody awaits would stop the process (a busy or unreachable database, say).
+    try {
+      await super.touch(sid, data);
+      callback?.();
+    } catch (error) {
+      this.touchedAt.delete(sid);
+      (callback as ((error?: unknown) => void) | undefined)?.(error);
+    }
   }
 }
 

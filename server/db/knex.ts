@@ -7,18 +7,22 @@ import { CachedStatementsSqliteClient } from './sqlite-client';
 
 export type Db = Knex;
 
+/** The default of SQLITE_BUSY_TIMEOUT_MS: long enough to outwait any one of our write transactions. */
 export const SQLITE_BUSY_TIMEOUT_MS = 5_000;
+
+type DbSettings = Pick<Config, 'databaseUrl' | 'sqliteFile'> & Partial<Pick<Config, 'sqliteBusyTimeoutMs'>>;
 
 interface BetterSqliteConnection {
   pragma(source: string): unknown;
 }
 
 /** Knex settings for the configured database: PostgreSQL when DATABASE_URL is set, else SQLite in DATA_DIR. */
-export function knexSettings(config: Pick<Config, 'databaseUrl' | 'sqliteFile'>): Knex.Config {
+export function knexSettings(config: DbSettings): Knex.Config {
   const migrations: Knex.MigratorConfig = { migrationSource, tableName: 'knex_migrations' };
   if (config.databaseUrl) {
     return { client: 'pg', connection: config.databaseUrl, pool: { min: 0, max: 10 }, migrations };
   }
+  const busyTimeoutMs = config.sqliteBusyTimeoutMs ?? SQLITE_BUSY_TIMEOUT_MS;
   return {
     // Knex's types know only its base client; this one is its better-sqlite3 client, extended.
     client: CachedStatementsSqliteClient as unknown as typeof Knex.Client,
@@ -36,7 +40,7 @@ export function knexSettings(config: Pick<Config, 'databaseUrl' | 'sqliteFile'>)
           // See docs/decisions/001-sqlite-wal-and-transactions.md for why these four.
           connection.pragma('journal_mode = WAL');
           connection.pragma('synchronous = NORMAL');
-          connection.pragma(`busy_timeout = ${SQLITE_BUSY_TIMEOUT_MS}`);
+          connection.pragma(`busy_timeout = ${busyTimeoutMs}`);
           connection.pragma('foreign_keys = ON');
           done(null, connection);
         } catch (error) {
@@ -49,9 +53,22 @@ export function knexSettings(config: Pick<Config, 'databaseUrl' | 'sqliteFile'>)
 }
 
 /** The one Knex instance of a process. */
-export function createDb(config: Pick<Config, 'databaseUrl' | 'sqliteFile'>): Db {
+export function createDb(config: DbSettings): Db {
   if (!config.databaseUrl) fs.mkdirSync(path.dirname(config.sqliteFile), { recursive: true });
   return knex(knexSettings(config));
 }
 
 export const isSqlite = (db: Db): boolean => db.client.dialect === 'sqlite3';
+
+/**
+ * The `nulls` of an ORDER BY that sorts NULLs as the smallest values, as SQLite does; PostgreSQL's
+ * default is the opposite. SQLite is given none: Knex rewrites a SQLite `nulls` option into a
+ * null test that replaces the column's own order.
+ */
+export function nullsAsSmallest(
+  db: Db | Knex.Transaction,
+  order: 'asc' | 'desc',
+): 'first' | 'last' | undefined {
+  if (db.client.dialect === 'sqlite3') return undefined;
+  return order === 'asc' ? 'first' : 'last';
+}

@@ -12,6 +12,7 @@ interface Statement {
 
 interface Connection {
   prepare(sql: string): Statement;
+  inTransaction: boolean;
 }
 
 interface QueryObject {
@@ -36,6 +37,8 @@ export const STATEMENT_CACHE_SIZE = 1_000;
 
 const NEVER_REPEATED = /^(SAVEPOINT|RELEASE SAVEPOINT|ROLLBACK TO SAVEPOINT) /;
 
+const ROLLBACK = /^ROLLBACK\b/;
+
 const caches = new WeakMap<Connection, Map<string, Statement>>();
 
 /**
@@ -49,6 +52,14 @@ export class CachedStatementsSqliteClient extends BetterSqliteClient {
   async _query(connection: Connection, obj: QueryObject): Promise<QueryObject> {
     if (!obj.sql) throw new Error('The query is empty');
     if (!connection) throw new Error('No connection provided');
+    // SQLite ends the transaction itself on some errors (SQLITE_FULL, SQLITE_IOERR, SQLITE_NOMEM:
+    // https://www.sqlite.org/lang_transaction.html#response_to_errors_within_a_transaction); Knex's
+    // ROLLBACK would then fail with "no transaction is active" and hide the error that ended it.
+    if (!connection.inTransaction && ROLLBACK.test(obj.sql)) {
+      obj.response = { changes: 0, lastInsertRowid: 0 };
+      obj.context = { lastID: 0, changes: 0 };
+      return obj;
+    }
     const statement = cachedStatement(connection, obj.sql, obj.options?.safeIntegers);
     const bindings = this._formatBindings(obj.bindings);
     if (statement.reader) {

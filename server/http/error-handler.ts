@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { DatabaseUnavailableError, databaseUnavailable } from '../db/database-errors';
 import { AppError, type ErrorKind } from '../errors';
 
 const STATUS: Record<ErrorKind, number> = {
@@ -41,10 +42,19 @@ export const apiNotFound: RequestHandler = (req, res) => {
 
 /** The one place that turns errors into `{"error": {code, message, fields}}`. Unknown errors stay private. */
 export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
-  const known = error instanceof AppError ? error : fromFramework(error ?? {});
+  const database = error instanceof AppError ? undefined : databaseUnavailable(error);
+  const known = error instanceof AppError ? error : (database ?? fromFramework(error ?? {}));
   if (res.headersSent) {
     req.log?.error({ err: error }, 'error after the answer started');
     return;
+  }
+  if (database) {
+    // Not a bug of ours, but the operator should know: a full disk needs them, a busy one may need tuning.
+    if (database.retryAfterSeconds === undefined) req.log?.error({ err: error }, database.message);
+    else req.log?.warn({ err: error }, database.message);
+  }
+  if (known instanceof DatabaseUnavailableError && known.retryAfterSeconds !== undefined) {
+    res.set('Retry-After', String(known.retryAfterSeconds));
   }
   if (known) {
     const body: Record<string, unknown> = { code: known.code, message: known.message };
