@@ -26,6 +26,21 @@ export default defineConfig({
         extends: true,
         test: { name: 'api', include: ['tests/api/**/*.test.ts'], environment: 'node', testTimeout: 30_000 },
       },
+      // The same API tests with each app on a PostgreSQL schema of its own (tests/api/support/test-app.ts).
+      ...(process.env.TEST_DATABASE_URL
+        ? [
+            {
+              extends: true as const,
+              test: {
+                name: 'api-postgres',
+                include: ['tests/api/**/*.test.ts'],
+                environment: 'node' as const,
+                testTimeout: 30_000,
+                env: { DIPDECK_TEST_DB: 'postgres' },
+              },
+            },
+          ]
+        : []),
       {
         extends: true,
         test: {

@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import type { Db } from './knex';
+import { type Db, nullsAsSmallest } from './knex';
 import { nowIso, toBool, toIso } from './rows';
 
 type Q = Db | Knex.Transaction;
@@ -92,7 +92,11 @@ const withTarget = (db: Q) =>
 export async function listCandidates(db: Q, campaignId: number): Promise<CandidateRow[]> {
   const rows: Raw[] = await withTarget(db)
     .where('candidates.campaign_id', campaignId)
-    .orderBy([{ column: 'candidates.priority', order: 'desc' }, 'candidates.id']);
+    // Candidates without a priority last, on either database.
+    .orderBy([
+      { column: 'candidates.priority', order: 'desc', nulls: nullsAsSmallest(db, 'desc') },
+      'candidates.id',
+    ]);
   const dips = await dipIdsOf(
     db,
     rows.map((row) => Number(row.id)),
@@ -110,10 +114,11 @@ export async function findCandidateForTarget(db: Q, campaignId: number, targetId
   return db('candidates').where({ campaign_id: campaignId, target_id: targetId }).first('id');
 }
 
+/** Inserts a candidate; answers undefined when the target already is one (the unique index decides). */
 export async function insertCandidate(
   db: Q,
   candidate: CandidateFields & { campaignId: number; targetId: number; promotedBy: number; dipIds: number[] },
-): Promise<number> {
+): Promise<number | undefined> {
   const now = nowIso();
   const [row] = await db('candidates')
     .insert({
@@ -134,7 +139,10 @@ export async function insertCandidate(
       created_at: now,
       updated_at: now,
     })
+    .onConflict(['campaign_id', 'target_id'])
+    .ignore()
     .returning('id');
+  if (row === undefined) return undefined;
   const id = Number(typeof row === 'object' ? row.id : row);
   if (candidate.dipIds.length > 0) {
     await db('candidate_dips').insert(candidate.dipIds.map((dipId) => ({ candidate_id: id, dip_id: dipId })));
@@ -174,7 +182,7 @@ export interface TargetDip {
 export async function dipsOfTarget(db: Q, campaignId: number, targetId: number): Promise<TargetDip[]> {
   const rows: Raw[] = await db('dips')
     .where({ campaign_id: campaignId, target_id: targetId })
-    .orderBy('time_center');
+    .orderBy(['time_center', 'id']);
   return rows.map(toTargetDip);
 }
 
@@ -222,7 +230,7 @@ export async function dipTargets(db: Q, campaignId: number): Promise<DipTarget[]
   const rows: Raw[] = await db('dips')
     .join('targets', 'targets.id', 'dips.target_id')
     .where('dips.campaign_id', campaignId)
-    .orderBy(['dips.target_id', 'dips.time_center'])
+    .orderBy(['dips.target_id', 'dips.time_center', 'dips.id'])
     .select('dips.*', 'targets.designation');
   const candidates = new Set(
     (await db('candidates').where({ campaign_id: campaignId }).pluck('target_id')).map(Number),

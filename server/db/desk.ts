@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import type { AuditVerdict } from '../science/volunteer-audit';
-import type { Db } from './knex';
+import { type Db, nullsAsSmallest } from './knex';
 import { nowIso, toIso, toIsoOrNull } from './rows';
 import type { SnippetKind, SnippetState } from './snippets';
 
@@ -56,7 +56,10 @@ export async function listSplits(
     .limit(filter.limit)
     .offset(filter.offset);
   if (filter.order === 'needed') query.orderByRaw('exists ? desc', [onCandidate]);
-  query.orderBy([{ column: 'snippets.settled_at', order: 'asc' }, 'snippets.id']);
+  query.orderBy([
+    { column: 'snippets.settled_at', order: 'asc', nulls: nullsAsSmallest(db, 'asc') },
+    'snippets.id',
+  ]);
   const rows: Raw[] = await query;
   return {
     total: Number(count?.n ?? 0),
@@ -256,7 +259,10 @@ export interface AuditPerson {
 
 /** Volunteers (role volunteer, not deleted), by name, with a search over name and e-mail. */
 export async function listAuditPeople(db: Q, search?: string): Promise<AuditPerson[]> {
-  const query = db('people').where({ role: 'volunteer' }).whereNull('deleted_at').orderBy('display_name');
+  const query = db('people')
+    .where({ role: 'volunteer' })
+    .whereNull('deleted_at')
+    .orderBy(['display_name', 'id']);
   if (search) {
     const pattern = `%${search.toLowerCase().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
     query.andWhere((w) =>

@@ -91,7 +91,7 @@ export async function targetSeries(
 } | null> {
   const rows: Record<string, unknown>[] = await db('light_curves')
     .where({ target_id: targetId, is_quiet_reference: false })
-    .orderBy('time_start')
+    .orderBy(['time_start', 'id'])
     .select('series', 'time_system');
   const parts = rows.filter((row) => row.series).map((row) => unpackLightCurve(row.series as Buffer));
   if (parts.length === 0) return null;

@@ -48,27 +48,28 @@ const toColumns = (fields: TargetFields) => ({
   assumed_fields: JSON.stringify(fields.assumedFields),
 });
 
-/** Inserts or updates by designation within the campaign; answers the row and whether it was new. */
+/**
+ * Inserts or updates by designation within the campaign; answers the row and whether it was new. The
+ * unique index decides which: on PostgreSQL two imports of the same new star can run at once, and the
+ * second waits for the first and then updates its row instead of failing on the index.
+ */
 export async function upsertTarget(
   db: Db | Knex.Transaction,
   campaignId: number,
   fields: TargetFields,
 ): Promise<{ target: TargetRow; created: boolean }> {
-  const existing = await db('targets')
-    .where({ campaign_id: campaignId, designation: fields.designation })
-    .first();
   const now = nowIso();
-  if (existing) {
-    const [row] = await db('targets')
-      .where({ id: existing.id })
-      .update({ ...toColumns(fields), updated_at: now })
-      .returning('*');
-    return { target: toTarget(row), created: false };
-  }
-  const [row] = await db('targets')
+  const [inserted] = await db('targets')
     .insert({ ...toColumns(fields), campaign_id: campaignId, created_at: now, updated_at: now })
+    .onConflict(['campaign_id', 'designation'])
+    .ignore()
     .returning('*');
-  return { target: toTarget(row), created: true };
+  if (inserted) return { target: toTarget(inserted), created: true };
+  const [row] = await db('targets')
+    .where({ campaign_id: campaignId, designation: fields.designation })
+    .update({ ...toColumns(fields), updated_at: now })
+    .returning('*');
+  return { target: toTarget(row), created: false };
 }
 
 export async function findTargetByDesignation(

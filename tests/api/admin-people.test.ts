@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { listAudit } from '../../server/db/audit-log';
 import { createTestApp, personWithRole, signedIn, type TestApp } from './support/test-app';
 
 let test: TestApp;
@@ -51,13 +52,18 @@ describe('PATCH /api/admin/people/:id', () => {
     const response = await browser.patch(`/api/admin/people/${volunteer.id}`, { role: 'moderator' });
     expect(response.status).toBe(200);
     expect(response.body.person.role).toBe('moderator');
-    const entry = await test
-      .db('audit_log')
-      .where({ entity_id: String(volunteer.id), action: 'person.role_changed' })
-      .first();
-    expect(entry.actor_id).toBe(admin.id);
-    expect(JSON.parse(entry.before)).toEqual({ role: 'volunteer' });
-    expect(JSON.parse(entry.after)).toEqual({ role: 'moderator' });
+    const { entries } = await listAudit(test.db, {
+      entityId: String(volunteer.id),
+      action: 'person.role_changed',
+      limit: 10,
+      offset: 0,
+    });
+    expect(entries).toHaveLength(1);
+    expect(entries[0]).toMatchObject({
+      actorId: admin.id,
+      before: { role: 'volunteer' },
+      after: { role: 'moderator' },
+    });
   });
 
   it('refuses a scientist with 403 and leaves the role as it was', async () => {

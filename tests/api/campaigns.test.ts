@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { listAudit } from '../../server/db/audit-log';
 import { createTestApp, signedIn, type TestApp } from './support/test-app';
 
 let test: TestApp;
@@ -53,10 +54,18 @@ describe('campaigns', () => {
     const edit = await browser.patch(`/api/campaigns/${id}`, { name: 'Renamed' });
     expect(edit.status).toBe(409);
     expect(edit.body.error.code).toBe('campaign_closed');
-    const moves = await test
-      .db('audit_log')
-      .where({ entity_id: String(id), action: 'campaign.status_changed' });
-    expect(moves.map((m) => JSON.parse(m.after).status)).toEqual(['live', 'paused', 'live', 'closed']);
+    const moves = await listAudit(test.db, {
+      entityId: String(id),
+      action: 'campaign.status_changed',
+      limit: 10,
+      offset: 0,
+    });
+    expect(moves.entries.map((m) => (m.after as { status: string }).status).reverse()).toEqual([
+      'live',
+      'paused',
+      'live',
+      'closed',
+    ]);
   });
 
   it('refuses settings out of range or that do not fit together, naming the field, and changes nothing', async () => {

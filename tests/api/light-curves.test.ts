@@ -88,6 +88,26 @@ describe('POST /api/campaigns/:id/targets', () => {
     expect(bad.status).toBe(400);
     expect(bad.body.error.message).toMatch(/no designation column/);
   });
+
+  it('takes three imports of the same new stars at once: one creates each star, the others update it', async () => {
+    // On PostgreSQL the imports run side by side; SQLite runs them one after another.
+    const id = (await scientist.post('/api/campaigns', { name: 'Imported at once' })).body.campaign.id;
+    const stars = Array.from({ length: 40 }, (_, i) => `DPD-7100-${String(i).padStart(4, '0')},10.5,-20.25`);
+    const csv = Buffer.from(['designation,ra,dec', ...stars].join('\n'));
+    const token = await scientist.csrf();
+    const send = () =>
+      scientist.agent
+        .post(`/api/campaigns/${id}/targets`)
+        .set('X-CSRF-Token', token)
+        .attach('file', csv, 'catalogue.csv');
+    const imports = await Promise.all([send(), send(), send()]);
+    expect(imports.map((response) => response.status)).toEqual([200, 200, 200]);
+    const created = imports.reduce((sum, response) => sum + response.body.created, 0);
+    const updated = imports.reduce((sum, response) => sum + response.body.updated, 0);
+    expect({ created, updated }).toEqual({ created: 40, updated: 80 });
+    const [stored] = await test.db('targets').where({ campaign_id: id }).count({ n: '*' });
+    expect(Number(stored?.n)).toBe(40);
+  });
 });
 
 describe('POST /api/campaigns/:id/light-curves', () => {
@@ -222,7 +242,7 @@ describe('POST /api/campaigns/:id/light-curves', () => {
     fs.rmSync(big);
   });
 
-  it('refuses, before storing anything: wrong type (415), empty file, unknown target (400), closed campaign (409), volunteer (403)', async () => {
+  it('refuses, before storing anything: wrong type (415), empty file, unknown target, a NUL in a file name (400), closed campaign (409), volunteer (403)', async () => {
     const uploadsBefore = await test.db('uploads').count({ n: '*' });
     const image = await uploadBuffer('picture.png', Buffer.from([0x89, 0x50, 0x4e, 0x47, 0, 0, 0, 0]));
     expect(image.status).toBe(415);
@@ -232,6 +252,25 @@ describe('POST /api/campaigns/:id/light-curves', () => {
     const unknown = await upload([SHALLOW_CSV], { target: 'DPD-9999-0000' });
     expect(unknown.status).toBe(400);
     expect(unknown.body.error.fields.target).toBeDefined();
+    // A part header may name its file in RFC 5987 form, which can spell U+0000 (PostgreSQL's text cannot hold it).
+    const boundary = 'dipdeck-test-boundary';
+    const nulName = await scientist.agent
+      .post(`/api/campaigns/${campaignId}/light-curves`)
+      .set('X-CSRF-Token', await scientist.csrf())
+      .set('Content-Type', `multipart/form-data; boundary=${boundary}`)
+      .send(
+        [
+          `--${boundary}`,
+          `Content-Disposition: form-data; name="files"; filename*=UTF-8''star%00one.csv`,
+          'Content-Type: text/csv',
+          '',
+          fs.readFileSync(SHALLOW_CSV, 'utf8'),
+          `--${boundary}--`,
+          '',
+        ].join('\r\n'),
+      );
+    expect(nulName.status).toBe(400);
+    expect(nulName.body.error.fields.files).toMatch(/NUL/);
     const json = await scientist.post(`/api/campaigns/${campaignId}/light-curves`, { files: [] });
     expect(json.status).toBe(415);
     const closedId = (await scientist.post('/api/campaigns', { name: 'Closed one' })).body.campaign.id;
@@ -240,10 +279,12 @@ describe('POST /api/campaigns/:id/light-curves', () => {
     expect(closed.status).toBe(409);
     const { browser: volunteer } = await signedIn(test, 'volunteer');
     const token = await volunteer.csrf();
+    // A small file: the 403 comes before the body is read, and supertest closes its server once it
+    // has answered, which cuts off a body still being written (EPIPE).
     const refused = await volunteer.agent
       .post(`/api/campaigns/${campaignId}/light-curves`)
       .set('X-CSRF-Token', token)
-      .attach('files', SHALLOW_CSV);
+      .attach('files', Buffer.from('time,flux\n1,1\n'), 'small.csv');
     expect(refused.status).toBe(403);
     expect(await test.db('uploads').count({ n: '*' })).toEqual(uploadsBefore);
     expect(fs.readdirSync(path.join(test.dataDir, 'uploads', 'incoming'))).toEqual([]);

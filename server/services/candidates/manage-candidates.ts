@@ -136,10 +136,11 @@ export async function promoteCandidate(
     magnitude: target.magnitude,
     telescopePrecisionPpm: input.telescopePrecisionPpm ?? DEFAULT_TELESCOPE_PRECISION_PPM,
   });
+  const alreadyCandidate = () =>
+    new AppError('already_a_candidate', 'This target is already on the follow-up list', 'conflict');
   const id = await writeTransaction(db, async (trx) => {
-    if (await findCandidateForTarget(trx, campaignId, target.id)) {
-      throw new AppError('already_a_candidate', 'This target is already on the follow-up list', 'conflict');
-    }
+    if (await findCandidateForTarget(trx, campaignId, target.id)) throw alreadyCandidate();
+    // On PostgreSQL a promotion of the same target can pass the check at the same time: the index decides.
     const candidateId = await insertCandidate(trx, {
       ...fields,
       priority,
@@ -149,6 +150,7 @@ export async function promoteCandidate(
       promotedBy: scientist.id,
       dipIds: chosen.map((dip) => dip.id),
     });
+    if (candidateId === undefined) throw alreadyCandidate();
     await appendAudit(trx, {
       actorId: scientist.id,
       action: 'candidate.promoted',

@@ -49,7 +49,7 @@ async function pool(
     .where({ campaign_id: campaignId, state: 'open', kind })
     .andWhere('verdict_count', '<', verdictsMax)
     .whereNotIn('id', judged)
-    .orderBy('verdict_count', 'desc')
+    .orderBy([{ column: 'verdict_count', order: 'desc' }, 'id'])
     .limit(POOL_SIZE);
   if (exclude.length > 0) query.whereNotIn('id', exclude);
   const rows: Record<string, unknown>[] = await query;

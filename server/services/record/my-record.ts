@@ -72,7 +72,10 @@ export async function myRecord(db: Db, personId: number): Promise<MyRecord> {
       'campaigns.name',
       'targets.designation',
     )
-    .orderBy('verdicts.updated_at', 'desc')
+    .orderBy([
+      { column: 'verdicts.updated_at', order: 'desc' },
+      { column: 'verdicts.id', order: 'desc' },
+    ])
     .limit(20);
   return {
     verdicts: {

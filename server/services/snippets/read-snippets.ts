@@ -1,5 +1,5 @@
 import { appendAudit } from '../../db/audit-log';
-import type { Db } from '../../db/knex';
+import { type Db, nullsAsSmallest } from '../../db/knex';
 import { fromJson, nowIso } from '../../db/rows';
 import { unpackDisplay } from '../../db/series-codec';
 import { writeTransaction } from '../../db/transaction';
@@ -46,7 +46,8 @@ export async function listSnippets(db: Db, campaignId: number, query: SnippetQue
       'snippets.verdict_count',
       'snippets.consensus_score',
     )
-    .orderBy(SORT_COLUMNS[query.sort], query.order)
+    // Unscored snippets (no consensus score) sort as the smallest, on either database.
+    .orderBy(SORT_COLUMNS[query.sort], query.order, nullsAsSmallest(db, query.order))
     .orderBy('snippets.id', 'asc')
     .limit(query.pageSize)
     .offset((query.page - 1) * query.pageSize);

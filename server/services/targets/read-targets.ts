@@ -52,7 +52,9 @@ const MAX_PAGE_POINTS = 5000;
 export async function getTarget(db: Db, targetId: number) {
   const target = await findTargetById(db, targetId);
   if (!target) throw notFound('Target');
-  const lightCurveRows = await db('light_curves').where({ target_id: targetId }).orderBy('time_start');
+  const lightCurveRows = await db('light_curves')
+    .where({ target_id: targetId })
+    .orderBy(['time_start', 'id']);
   const lightCurves = lightCurveRows.map((row: Record<string, unknown>) => {
     const series = unpackLightCurve(row.series as Buffer);
     const n = series.timeDays.length;
@@ -80,7 +82,7 @@ export async function getTarget(db: Db, targetId: number) {
   });
   const snippets = await db('snippets')
     .where({ target_id: targetId })
-    .orderBy('time_start')
+    .orderBy(['time_start', 'id']) // a planted snippet starts where its source does
     .select('id', 'kind', 'state', 'time_start', 'time_end', 'consensus_score', 'planted_truth');
   const [counts] = await db('snippets').where({ target_id: targetId }).count<{ n: number }[]>({ n: '*' });
   const dips = await dipsOfTarget(db, target.campaignId, targetId);

@@ -88,6 +88,13 @@ export async function createUploads(
       );
     }
     const formats = files.map((file) => {
+      // The name comes from the multipart part's header, past the route's validation; PostgreSQL's text
+      // cannot hold U+0000, so it is refused here as everywhere else.
+      if (file.originalName.includes('\u0000')) {
+        throw new AppError('validation_failed', 'A file name holds the NUL character (U+0000)', 'invalid', {
+          files: 'The file name must not contain the NUL character (U+0000)',
+        });
+      }
       if (file.sizeBytes === 0) {
         throw new AppError('empty_file', `${file.originalName} is empty`, 'invalid', {
           files: `${file.originalName} is empty`,

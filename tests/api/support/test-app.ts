@@ -17,6 +17,7 @@ import { createMailer, type Mailer } from '../../../server/mail/mailer';
 import { createQueues, type Queues } from '../../../worker/queues';
 import { createRedisConnection } from '../../../worker/redis-connection';
 import { startProcessors } from '../../../worker/start-processors';
+import { apiTestDatabase, createPostgresSchema, TEST_DATABASE_URL } from '../../support/databases';
 
 export const TEST_PASSWORD = 'a long test passphrase';
 
@@ -37,14 +38,46 @@ export interface TestAppOptions {
   queues?: boolean;
 }
 
-/** A real app on a fresh SQLite file in its own temporary directory, removed after the test file. */
+// Test files call createTestApp inside beforeAll, where an afterAll registered would never run (vitest
+// attaches hooks while collecting, not while running a hook); this module's own afterAll, registered
+// when a test file imports it, removes each file's apps after the file.
+const teardowns: (() => Promise<void>)[] = [];
+afterAll(async () => {
+  for (const teardown of teardowns.splice(0).reverse()) await teardown();
+});
+
+/**
+ * A real app on a fresh database of its own, removed after the test file: a SQLite file in its own
+ * temporary directory, or under the `api-postgres` project a PostgreSQL schema of its own, reached
+ * through DATABASE_URL as a deployment reaches it.
+ */
 export async function createTestApp(options: TestAppOptions = {}): Promise<TestApp> {
-  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'dipdeck-api-'));
-  const config = loadConfig({ NODE_ENV: 'test', DATA_DIR: dataDir, DIPDECK_DEMO: '0', ...options.env });
-  const db = createDb(config);
-  await migrateLatest(db);
+  let db: Db | undefined;
   let queues: Queues | undefined;
   let mailer: Mailer | undefined;
+  let dropSchema: (() => Promise<void>) | undefined;
+  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'dipdeck-api-'));
+  // Kept first, so that an app that fails to start leaves no schema or directory behind either.
+  teardowns.push(async () => {
+    await queues?.close();
+    await mailer?.close();
+    await db?.destroy();
+    await dropSchema?.();
+    fs.rmSync(dataDir, { recursive: true, force: true });
+  });
+  let databaseUrl: string | undefined;
+  if (apiTestDatabase === 'postgres' && TEST_DATABASE_URL && !options.env?.DATABASE_URL) {
+    ({ databaseUrl, dropSchema } = await createPostgresSchema(TEST_DATABASE_URL));
+  }
+  const config = loadConfig({
+    NODE_ENV: 'test',
+    DATA_DIR: dataDir,
+    DIPDECK_DEMO: '0',
+    DATABASE_URL: databaseUrl,
+    ...options.env,
+  });
+  db = createDb(config);
+  await migrateLatest(db);
   if (options.queues) {
     const logger = createLogger(config);
     queues = createQueues(createRedisConnection({ redisUrl: undefined }, `api-${randomUUID()}`));
@@ -52,12 +85,6 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
     await startProcessors(queues, { config, db, logger, queues, mailer });
   }
   const { app } = createApp({ config, db, queues });
-  afterAll(async () => {
-    await queues?.close();
-    await mailer?.close();
-    await db.destroy();
-    fs.rmSync(dataDir, { recursive: true, force: true });
-  });
   return { app, db, config, dataDir, queues, mailer };
 }
 
