@@ -4,7 +4,7 @@ import { csrf } from '../auth/csrf';
 import { hasRole, type Role } from '../auth/roles';
 import type { PersonRow } from '../db/people';
 import { AppError } from '../errors';
-import { fieldErrors } from './validation';
+import { fieldErrors, nulCharacterFields } from './validation';
 
 /**
  * Who may call a route. Every route must say it, so that a route cannot be added without a rule
@@ -78,8 +78,9 @@ export function checkAccess(access: Access, person: PersonRow | undefined): void
 function parsePart<S extends Schema | undefined>(schema: S, value: unknown, part: string): Out<S> {
   if (!schema) return undefined as Out<S>;
   const result = schema.safeParse(value ?? (part === 'body' ? undefined : {}));
-  if (!result.success) {
-    throw new AppError('validation_failed', `The ${part} is not valid`, 'invalid', fieldErrors(result.error));
+  const problems = result.success ? nulCharacterFields(result.data) : fieldErrors(result.error);
+  if (Object.keys(problems).length > 0) {
+    throw new AppError('validation_failed', `The ${part} is not valid`, 'invalid', problems);
   }
   return result.data as Out<S>;
 }
@@ -138,7 +139,19 @@ export function mountRoutes(router: Router, routes: AnyRouteDef[]): void {
   }
   router.use((req, res, next) => {
     const group = groups.get(firstSegment(req.path));
-    if (group) group(req, res, next);
+    if (group) group(req, res, (error?: unknown) => next(undecodablePath(error) ?? error));
     else next();
+  });
+}
+
+/**
+ * The router decodes each path parameter before any handler runs, and answers a percent sign not
+ * followed by UTF-8 in hex ("/campaigns/%") with a URIError of status 400: a bad parameter, not ours.
+ */
+function undecodablePath(error: unknown): AppError | undefined {
+  if (!(error instanceof URIError) || (error as URIError & { status?: number }).status !== 400)
+    return undefined;
+  return new AppError('validation_failed', 'The params is not valid', 'invalid', {
+    _: 'A "%" in the path must start a percent-encoded UTF-8 character, like %20',
   });
 }

@@ -15,7 +15,19 @@ export const MAX_CATALOGUE_BYTES = 10 * 1024 * 1024;
 export const incomingDir = (dataDir: string) => path.join(dataDir, 'uploads', 'incoming');
 
 function translate(error: unknown, field: string): unknown {
-  if (!(error instanceof multer.MulterError)) return error;
+  if (!(error instanceof multer.MulterError)) {
+    // busboy's own errors ("Unexpected end of form", "Malformed part header", "Multipart: Boundary not
+    // found") say the body is not well-formed multipart; errors with a syscall come from writing the
+    // file to disk, which is ours to answer for.
+    if (error instanceof Error && !('syscall' in error)) {
+      return new AppError(
+        'bad_multipart',
+        `The multipart body could not be read: ${error.message}`,
+        'invalid',
+      );
+    }
+    return error;
+  }
   switch (error.code) {
     case 'LIMIT_FILE_SIZE':
       return new AppError('file_too_large', 'A file is larger than the limit', 'too_large', {
@@ -63,7 +75,16 @@ export function lightCurveUpload(dataDir: string, field: string): RequestHandler
     storage,
     limits: { fileSize: MAX_LIGHT_CURVE_BYTES, files: MAX_FILES_PER_REQUEST, fields: 10, fieldSize: 1024 },
   }).array(field, MAX_FILES_PER_REQUEST);
-  return requireMultipart(field, parser);
+  return requireMultipart(field, (req, res, next) => {
+    // A request refused after its files were written (bad fields, bad params) never reaches the
+    // service that moves them away: whatever the answer, none of its files stays in the incoming folder.
+    res.on('close', () => {
+      const files = Array.isArray(req.files) ? req.files : [];
+      for (const file of files)
+        if (typeof file?.path === 'string') fs.rm(file.path, { force: true }, () => {});
+    });
+    parser(req, res, next);
+  });
 }
 
 /** A catalogue: one CSV of up to 10 MB, kept in memory. */

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { listAudit } from '../../db/audit-log';
 import type { AppDeps } from '../app-deps';
 import { defineRoute } from '../define-route';
+import { rowIdText } from '../schemas';
 
 const isoDate = z.iso.datetime({ offset: true, message: 'An ISO 8601 date and time' });
 
@@ -10,7 +11,7 @@ const auditQuery = z
     action: z.string().trim().max(64).optional(),
     entityType: z.string().trim().max(32).optional(),
     entityId: z.string().trim().max(64).optional(),
-    actorId: z.coerce.number().int().positive().optional(),
+    actorId: rowIdText.optional(),
     from: isoDate.optional(),
     to: isoDate.optional(),
     limit: z.coerce.number().int().min(1).max(200).default(50),

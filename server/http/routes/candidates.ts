@@ -16,12 +16,12 @@ import {
 } from '../../services/candidates/transit-windows';
 import type { AppDeps } from '../app-deps';
 import { defineRoute } from '../define-route';
-import { idParams } from '../schemas';
+import { idParams, rowId } from '../schemas';
 
 const promoteBody = z
   .object({
-    targetId: z.number().int().positive(),
-    dipIds: z.array(z.number().int().positive()).max(500).optional(),
+    targetId: rowId,
+    dipIds: z.array(rowId).max(500).optional(),
     notes: z.string().max(5_000).nullable().optional(),
     telescopePrecisionPpm: z.number().positive().max(1_000_000).optional(),
   })

@@ -7,6 +7,7 @@ import { recordVerdict, undoVerdict } from '../../services/deck/verdicts';
 import { myRecord } from '../../services/record/my-record';
 import type { AppDeps } from '../app-deps';
 import { defineRoute } from '../define-route';
+import { rowId, rowIdText } from '../schemas';
 
 declare module 'express-session' {
   interface SessionData {
@@ -27,20 +28,21 @@ function judgeOf(req: Request): Judge {
 }
 
 const nextQuery = z.object({
-  campaign: z.coerce.number().int().positive().optional(),
+  campaign: rowIdText.optional(),
   count: z.coerce.number().int().min(1).max(10).default(3),
   exclude: z
     .string()
     .regex(/^\d+(,\d+)*$/, 'A comma-separated list of snippet ids')
     .max(400)
     .optional()
-    .transform((list) => (list ? list.split(',').map(Number) : [])),
+    .transform((list) => (list ? list.split(',').map(Number) : []))
+    .pipe(z.array(rowId)),
 });
 
 const verdictBody = z
   .object({
     clientId: z.string().regex(/^[A-Za-z0-9_-]{8,64}$/, '8–64 letters, digits, - or _ (a UUID will do)'),
-    snippetId: z.number().int().positive(),
+    snippetId: rowId,
     answer: z.enum(['dip', 'flat', 'unsure'], 'One of dip, flat or unsure'),
     markTime: z.number().finite().nullable().optional(),
     elapsedMs: z.number().int().min(0).max(3_600_000).optional(),

@@ -11,7 +11,7 @@ import {
 } from '../../services/desk/volunteers';
 import type { AppDeps } from '../app-deps';
 import { defineRoute } from '../define-route';
-import { idParams } from '../schemas';
+import { idParams, rowIdText } from '../schemas';
 
 const limitOffset = {
   limit: z.coerce.number().int().min(1).max(100).default(50),
@@ -20,7 +20,7 @@ const limitOffset = {
 
 const splitsQuery = z
   .object({
-    campaign: z.coerce.number().int().positive().optional(),
+    campaign: rowIdText.optional(),
     order: z.enum(['oldest', 'needed'], 'oldest or needed').default('oldest'),
     ...limitOffset,
   })
@@ -35,7 +35,7 @@ const rulingBody = z
 
 const volunteersQuery = z
   .object({
-    campaign: z.coerce.number().int().positive().optional(),
+    campaign: rowIdText.optional(),
     search: z.string().trim().max(100).optional(),
     flagged: z
       .enum(['true', 'false'], 'true or false')
@@ -48,7 +48,7 @@ const volunteersQuery = z
   .strict();
 
 const flagParams = z.object({
-  id: z.coerce.number().int().positive('Must be a positive whole number'),
+  id: rowIdText,
   code: z.enum(['too_fast', 'chance_accuracy', 'one_answer', 'burst'], 'An automatic flag'),
 });
 

@@ -10,12 +10,12 @@ import {
 } from '../../services/newsletters/manage-newsletters';
 import type { AppDeps } from '../app-deps';
 import { defineRoute } from '../define-route';
-import { idParams } from '../schemas';
+import { idParams, rowId } from '../schemas';
 
 const audience = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('opted-in') }).strict(),
   z.object({ kind: z.literal('active'), days: z.number().int().min(1).max(3_650) }).strict(),
-  z.object({ kind: z.literal('campaign'), campaignId: z.number().int().positive() }).strict(),
+  z.object({ kind: z.literal('campaign'), campaignId: rowId }).strict(),
 ]);
 
 const content = {

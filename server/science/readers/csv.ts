@@ -48,7 +48,9 @@ const COMMENT_KEYWORDS = new Set([
   'BJDREF',
   'OBJECT',
 ]);
-const KEYWORD_LINE = /^#+\s*([A-Za-z][A-Za-z0-9_-]*)\s*[=:]\s*(.*)$/;
+// The value runs to the end of the line, whatever it holds ('s': U+2028 too); keywordValue trims it.
+// A `\s*` before it, with `.` stopping at U+2028, made a line of spaces and U+2028 take quadratic time.
+const KEYWORD_LINE = /^#+\s*([A-Za-z][A-Za-z0-9_-]*)\s*[=:](.*)$/s;
 // Written so that no two branches match the same digits: linear time on any cell, however long.
 const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eEdD][+-]?\d+)?$/;
 const MISSING = new Set(['nan', '+nan', '-nan', 'null', 'none', 'na', 'n/a']);
@@ -126,17 +128,31 @@ function isNumberCell(cell: string): boolean {
   return value !== null && Number.isFinite(value);
 }
 
+function notText(what: string): ReaderError {
+  return new ReaderError(
+    `not a text table: the file holds binary data (${what}); upload a CSV/TSV text table or a FITS file`,
+  );
+}
+
 /** Turns the bytes into text: UTF-8 (BOM removed), or UTF-16 when a UTF-16 BOM says so. */
 function decodeText(input: Uint8Array | string): string {
   if (typeof input === 'string') return input.replace(/^\uFEFF/, '');
-  if (input[0] === 0xff && input[1] === 0xfe) return new TextDecoder('utf-16le').decode(input);
-  if (input[0] === 0xfe && input[1] === 0xff) return new TextDecoder('utf-16be').decode(input);
-  const nul = input.indexOf(0);
-  if (nul >= 0) {
-    throw new ReaderError(
-      `not a text table: the file holds binary data (a NUL byte at offset ${nul}); upload a CSV/TSV text table or a FITS file`,
-    );
+  const utf16 =
+    input[0] === 0xff && input[1] === 0xfe
+      ? 'utf-16le'
+      : input[0] === 0xfe && input[1] === 0xff
+        ? 'utf-16be'
+        : null;
+  if (utf16) {
+    // In UTF-16 every character has a zero byte, but no text has the character U+0000 (and a
+    // database cannot store it in a name or a message).
+    const text = new TextDecoder(utf16).decode(input);
+    const nul = text.indexOf('\u0000');
+    if (nul >= 0) throw notText(`a NUL character at character ${nul}`);
+    return text;
   }
+  const nul = input.indexOf(0);
+  if (nul >= 0) throw notText(`a NUL byte at offset ${nul}`);
   let ascii = true;
   for (let i = 0; i < input.length; i += 1) {
     if (input[i]! > 0x7f) {

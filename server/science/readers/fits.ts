@@ -422,6 +422,13 @@ function keyword<T>(
   return read(table.header, table.number) ?? read(primary.header, primary.number);
 }
 
+// A message names what the file holds, but not all of a file of thousands of HDUs or columns.
+const LISTED = 30;
+function listed(items: readonly string[], separator: string): string {
+  const shown = items.slice(0, LISTED).join(separator);
+  return items.length > LISTED ? `${shown}${separator}… (${items.length} in all)` : shown;
+}
+
 function nonEmpty(text: string | null): string | null {
   return text === null || text.trim() === '' ? null : text.trim();
 }
@@ -461,7 +468,12 @@ export function readFitsLightCurve(bytes: Uint8Array, options: FitsReadOptions =
     hasTable = true;
     const names = table.columns.map((column) => column.name);
     seen.push(
-      `${describeHdu(hdu)} with columns ${names.map((name, i) => name || `(unnamed ${i})`).join(', ') || 'none'}`,
+      `${describeHdu(hdu)} with columns ${
+        listed(
+          names.map((name, i) => name || `(unnamed ${i})`),
+          ', ',
+        ) || 'none'
+      }`,
     );
     if (wanted !== undefined) {
       if (hdu.extname?.trim().toUpperCase() !== wanted) continue;
@@ -477,9 +489,11 @@ export function readFitsLightCurve(bytes: Uint8Array, options: FitsReadOptions =
   }
   if (primary === null) throw new ReaderError('not a FITS file: it has no primary HDU');
   if (chosen === null) {
-    const tables = seen.join('; ');
+    const tables = listed(seen, '; ');
     if (wanted !== undefined)
-      throw new ReaderError(`no binary table has EXTNAME '${options.extname}'; the file holds ${tables}`);
+      throw new ReaderError(
+        `no binary table has EXTNAME '${options.extname?.slice(0, 40)}'; the file holds ${tables}`,
+      );
     throw new ReaderError(
       hasTable
         ? `no table with a time column and a flux column; the file holds ${tables}`

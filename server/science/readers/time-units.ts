@@ -63,7 +63,7 @@ export function daysPerTimeUnit(columnUnit: string | null, timeunit: string | nu
   const fromKeyword = DAYS_PER_UNIT[timeunit.trim().toLowerCase()];
   if (fromKeyword === undefined) {
     throw new ReaderError(
-      `TIMEUNIT '${timeunit}' is not a time unit this reader knows; allowed: ${KNOWN_TIME_UNITS.join(', ')}`,
+      `TIMEUNIT '${timeunit.slice(0, 40)}' is not a time unit this reader knows; allowed: ${KNOWN_TIME_UNITS.join(', ')}`,
     );
   }
   return fromKeyword;
