@@ -8,6 +8,7 @@ import * as deck from './deck.bench';
 import * as deckInp from './deck-inp.bench';
 import * as exports from './exports.bench';
 import { type Figure, formatFigure } from './figures';
+import * as load from './load.bench';
 import * as pipeline from './pipeline.bench';
 import * as queue from './queue.bench';
 import * as readers from './readers.bench';
@@ -26,6 +27,7 @@ const BENCHMARKS: [name: string, run: () => Promise<Figure[]>][] = [
   ['deck-inp', deckInp.run],
   ['exports', exports.run],
   ['vetting', vetting.run],
+  ['load', load.run],
 ];
 
 const filter = process.argv[2];
