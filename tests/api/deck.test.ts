@@ -113,6 +113,13 @@ describe('GET /api/deck/next', () => {
 
   it('never serves a paused or closed campaign, and gives a suspended account no cards', async () => {
     const { browser, person } = await signedIn(test, 'volunteer');
+    // A draft does not exist for the Deck: neither its status nor that it exists is told.
+    const draft = await createCampaign(test.db, { status: 'draft' });
+    await createSnippetFixtures(test.db, draft, { targets: 2, real: 4 });
+    const unknown = await browser.get('/api/deck/next?campaign=999999');
+    const drafted = await browser.get(`/api/deck/next?campaign=${draft}`);
+    expect([drafted.status, unknown.status]).toEqual([404, 404]);
+    expect(drafted.body).toEqual(unknown.body);
     for (const status of ['paused', 'closed']) {
       const other = await createCampaign(test.db, { status: status as 'paused' | 'closed' });
       await createSnippetFixtures(test.db, other, { targets: 2, real: 4 });

@@ -90,7 +90,8 @@ export async function nextCards(
 ): Promise<Card[]> {
   const random = request.random ?? Math.random;
   const campaign = await findCampaignById(db, request.campaignId);
-  if (!campaign) throw notFound('Campaign');
+  // A draft is the science team's own until it goes live: to the Deck it does not exist yet.
+  if (!campaign || campaign.status === 'draft') throw notFound('Campaign');
   if (campaign.status !== 'live') {
     throw new AppError(
       'campaign_not_live',
