@@ -1,7 +1,6 @@
 // The database busy, full or away: the API answers 503 with what to do, keeps serving, and loses nothing
 // already stored. Each fault is provoked for real: another connection holding SQLite's write lock, a
 // page limit that makes SQLite's file full, a PostgreSQL that refuses or drops connections.
-import { createRequire } from 'node:module';
 import knex from 'knex';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -9,11 +8,8 @@ import { loadConfig } from '../../server/config';
 import { createDb } from '../../server/db/knex';
 import { createApp } from '../../server/http/app';
 import { apiTestDatabase, createPostgresSchema, TEST_DATABASE_URL } from '../support/databases';
+import { holdSqliteWriteLock } from '../support/sqlite-write-lock';
 import { type Browser, createTestApp, signedIn, type TestApp } from './support/test-app';
-
-// better-sqlite3 ships no types; the test needs a connection that begins and ends a transaction.
-const Database: new (file: string) => { prepare(sql: string): { run(): unknown }; close(): void } =
-  createRequire(import.meta.url)('better-sqlite3');
 
 const campaignNames = async (test: TestApp): Promise<string[]> =>
   test.db('campaigns').orderBy('id').pluck('name');
@@ -32,9 +28,8 @@ describe.runIf(apiTestDatabase === 'sqlite')('when SQLite is busy or full', () =
     // Just signed in: its next request also writes the session's expiry, which meets the lock too.
     const { browser: newcomer } = await signedIn(test, 'scientist');
     // Another process's write transaction (a worker's, a backup tool's), held past the busy timeout.
-    const other = new Database(test.config.sqliteFile);
+    const other = holdSqliteWriteLock(test.config.sqliteFile);
     try {
-      other.prepare('BEGIN IMMEDIATE').run();
       const refused = await browser.post('/api/campaigns', { name: 'During the lock' });
       expect(refused.status).toBe(503);
       expect(refused.body.error).toEqual({
@@ -45,8 +40,7 @@ describe.runIf(apiTestDatabase === 'sqlite')('when SQLite is busy or full', () =
       // Reads do not wait for the writer (WAL); the session's expiry is written another time.
       expect((await newcomer.get('/api/campaigns')).status).toBe(200);
     } finally {
-      other.prepare('ROLLBACK').run();
-      other.close();
+      other.release();
     }
     expect((await browser.post('/api/campaigns', { name: 'After the lock' })).status).toBe(201);
     expect((await newcomer.post('/api/campaigns', { name: 'Newcomer after the lock' })).status).toBe(201);

@@ -5,7 +5,6 @@
 // tests/worker/support/halt-at-statement.ts and killed there, not after a sleep.
 import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
-import { createRequire } from 'node:module';
 import os from 'node:os';
 import path from 'node:path';
 import type Bull from 'bull';
@@ -20,6 +19,7 @@ import { processUpload } from '../../server/services/uploads/process-upload';
 import { createQueues, enqueue, type Queues } from '../../worker/queues';
 import { createRedisConnection } from '../../worker/redis-connection';
 import { eventually } from '../support/eventually';
+import { holdSqliteWriteLock } from '../support/sqlite-write-lock';
 import { TEST_REDIS_URL } from './support/backends';
 import {
   CONSENSUS_SNIPPETS,
@@ -29,10 +29,6 @@ import {
   uploadInNewCampaign,
 } from './support/job-fixtures';
 import { killWorkers, startWorker, type WorkerProcess } from './support/worker-processes';
-
-// better-sqlite3 ships no types: a connection of the test's own that holds the write lock.
-const Database: new (file: string) => { prepare(sql: string): { run(): unknown }; close(): void } =
-  createRequire(import.meta.url)('better-sqlite3');
 
 const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'dipdeck-faults-'));
 const sqliteFile = path.join(dataDir, 'dipdeck.sqlite');
@@ -197,10 +193,8 @@ describe.runIf(TEST_REDIS_URL)('worker processes killed in the middle of a job',
     // The same worker, its database locked by another connection past its busy timeout (100 ms): the
     // job fails and is retried, and the process goes on.
     const locked = await uploadInNewCampaign(db, scientist);
-    const holder = new Database(sqliteFile);
-    let released = false;
+    const holder = holdSqliteWriteLock(sqliteFile);
     try {
-      holder.prepare('BEGIN IMMEDIATE').run();
       const ref = await enqueue(rescue.queues, 'ingest', 'upload', { uploadId: locked.uploadId });
       const id = ref.slice(ref.indexOf(':') + 1);
       let failed: Bull.Job | null = null;
@@ -210,14 +204,12 @@ describe.runIf(TEST_REDIS_URL)('worker processes killed in the middle of a job',
       }, 'the job fails against the locked database');
       expect(failed!.failedReason).toMatch(/database is locked/);
       expect(await failed!.getState()).toBe('delayed');
-      holder.prepare('ROLLBACK').run();
-      released = true;
+      holder.release();
       const retried = await jobDone(rescue.queues.byKey.ingest, id);
       expect(retried.returnvalue).toEqual({ outcome: 'done' });
       expect(retried.attemptsMade).toBe(1);
     } finally {
-      if (!released) holder.prepare('ROLLBACK').run();
-      holder.close();
+      holder.release();
     }
     expect(await ingestedSignature(db, locked.campaignId)).toEqual(ingested);
     expect(rescuer.child.exitCode).toBeNull();

@@ -6,19 +6,17 @@ import os from 'node:os';
 import path from 'node:path';
 import type Bull from 'bull';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createCampaign } from '../../seeds/factories/campaigns';
 import { createPerson } from '../../seeds/factories/people';
 import { loadConfig } from '../../server/config';
 import { createDb } from '../../server/db/knex';
 import { migrateLatest } from '../../server/db/migrate';
-import { upsertTarget } from '../../server/db/targets';
-import { insertUpload } from '../../server/db/uploads';
 import { createLogger } from '../../server/logger';
 import { processUpload } from '../../server/services/uploads/process-upload';
 import { ingestProcessor } from '../../worker/processors/ingest';
 import { createQueue, createQueues, type Queues } from '../../worker/queues';
 import { createRedisConnection } from '../../worker/redis-connection';
 import { waitForEvents } from './support/backends';
+import { uploadInNewCampaign } from './support/job-fixtures';
 
 const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'dipdeck-ingest-job-'));
 const config = loadConfig({ NODE_ENV: 'test', DATA_DIR: dataDir });
@@ -26,8 +24,6 @@ const db = createDb(config);
 const connection = createRedisConnection({ redisUrl: undefined }, `ingest-${randomUUID()}`);
 let queues: Queues;
 let personId: number;
-// An invented light curve from tests/reference/make_reference.py.
-const FIXTURE = path.resolve(import.meta.dirname, '../fixtures/reference/hot-jupiter.fits');
 
 beforeAll(async () => {
   await migrateLatest(db);
@@ -39,32 +35,6 @@ afterAll(async () => {
   await db.destroy();
   fs.rmSync(dataDir, { recursive: true, force: true });
 });
-
-async function freshUpload(): Promise<{ uploadId: number; campaignId: number }> {
-  const campaignId = await createCampaign(db, { status: 'live' });
-  await upsertTarget(db, campaignId, {
-    designation: 'DPD-0417-3021',
-    raDeg: 217.4,
-    decDeg: -62.7,
-    magnitude: 11,
-    stellarRadiusRsun: 1.1,
-    stellarMassMsun: 1.05,
-    teffK: 5900,
-    assumedFields: [],
-  });
-  const { upload } = await insertUpload(db, {
-    campaignId,
-    uploadedBy: personId,
-    contentHash: 'hash-of-the-fixture', // the same file in each campaign: the same planted controls
-    originalName: 'hot-jupiter.fits',
-    format: 'fits',
-    sizeBytes: fs.statSync(FIXTURE).size,
-    storagePath: FIXTURE,
-    targetHint: null,
-    isQuietReference: false,
-  });
-  return { uploadId: upload.id, campaignId };
-}
 
 async function snippetSignature(campaignId: number): Promise<string[]> {
   const rows = await db('snippets')
@@ -78,7 +48,7 @@ describe('the ingest job', () => {
   let expected: string[];
 
   it('turns an upload into its snippets, and a repeated run changes nothing', async () => {
-    const { uploadId, campaignId } = await freshUpload();
+    const { uploadId, campaignId } = await uploadInNewCampaign(db, personId);
     expect(await processUpload(db, uploadId, async () => {})).toBe('done');
     expected = await snippetSignature(campaignId);
     expect(expected.length).toBeGreaterThan(10);
@@ -87,7 +57,7 @@ describe('the ingest job', () => {
   });
 
   it('killed mid-way (its worker gone before the commit), is taken over as stalled and makes each snippet once', async () => {
-    const { uploadId, campaignId } = await freshUpload();
+    const { uploadId, campaignId } = await uploadInNewCampaign(db, personId);
     const prefix = `kill-${randomUUID().slice(0, 6)}`;
     const settings = { lockDuration: 500, stalledInterval: 250, maxStalledCount: 1 };
     // The doomed worker runs the real ingestion but never gets past "saving", like a process killed there.
@@ -124,7 +94,7 @@ describe('the ingest job', () => {
   });
 
   it('retried after an unexpected error, still makes each snippet once', async () => {
-    const { uploadId, campaignId } = await freshUpload();
+    const { uploadId, campaignId } = await uploadInNewCampaign(db, personId);
     const queue = createQueue(connection, 'ingest', { prefix: `retry-${randomUUID().slice(0, 6)}` });
     const real = ingestProcessor({ config, db, logger: createLogger(config), queues });
     let attempts = 0;

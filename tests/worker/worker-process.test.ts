@@ -1,7 +1,6 @@
 // `npm run worker` as a separate process on real Redis: the server only enqueues, workers take the jobs.
 import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
-import { createRequire } from 'node:module';
 import os from 'node:os';
 import path from 'node:path';
 import type Bull from 'bull';
@@ -16,6 +15,7 @@ import { processUpload } from '../../server/services/uploads/process-upload';
 import { createQueues, enqueue, parseJobRef, type Queues } from '../../worker/queues';
 import { createRedisConnection } from '../../worker/redis-connection';
 import { eventually } from '../support/eventually';
+import { holdSqliteWriteLock } from '../support/sqlite-write-lock';
 import { TEST_REDIS_URL } from './support/backends';
 import {
   consensusSignature,
@@ -24,10 +24,6 @@ import {
   uploadInNewCampaign,
 } from './support/job-fixtures';
 import { killWorkers, startWorker } from './support/worker-processes';
-
-// better-sqlite3 ships no types: a connection of the test's own that holds the write lock.
-const Database: new (file: string) => { prepare(sql: string): { run(): unknown }; close(): void } =
-  createRequire(import.meta.url)('better-sqlite3');
 
 const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'dipdeck-worker-'));
 afterAll(() => {
@@ -92,10 +88,9 @@ describe('npm run worker', () => {
 
       // Held write lock: each worker takes one ingest job (their concurrency is 1) and waits on the
       // lock, so two active ingest jobs are on two different processes.
-      const holder = new Database(sqliteFile);
+      const holder = holdSqliteWriteLock(sqliteFile);
       const refs: string[] = [];
       try {
-        holder.prepare('BEGIN IMMEDIATE').run();
         for (const { uploadId } of uploads)
           refs.push(await enqueue(queues, 'ingest', 'upload', { uploadId }));
         await eventually(
@@ -103,8 +98,7 @@ describe('npm run worker', () => {
           'both workers take an ingest job',
         );
       } finally {
-        holder.prepare('ROLLBACK').run();
-        holder.close();
+        holder.release();
       }
       for (const campaignId of rescored)
         refs.push(await enqueue(queues, 'consensus', 'rescore', { campaignId }));
