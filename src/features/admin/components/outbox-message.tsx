@@ -7,6 +7,7 @@ import { Loading } from '@/components/loading';
 import { MailFrame } from '@/components/mail-frame';
 import { PageHeader } from '@/components/page-header';
 import { Table, TableBody, TableHead, Td, Th, Tr } from '@/components/table';
+import { ViewSwitch } from '@/components/view-switch';
 import { paths } from '@/config/paths';
 import { isApiError } from '@/lib/api-client';
 import { useOutboxMessage } from '../api/get-outbox-message';
@@ -14,7 +15,6 @@ import { defaultView, formatSize, type OutboxMessage, type OutboxView, recipient
 import { formatReceived } from './outbox-admin';
 
 const viewLabels: Record<OutboxView, string> = { html: 'HTML', text: 'Plain text', headers: 'Headers' };
-const views = Object.keys(viewLabels) as OutboxView[];
 
 export function OutboxMessagePage({ messageId }: { messageId: number }) {
   const message = useOutboxMessage(messageId);
@@ -80,25 +80,13 @@ function MessageView({ message }: { message: OutboxMessage }) {
       </dl>
 
       <section aria-label="Message content" className="flex flex-col gap-4">
-        <fieldset className="flex flex-col gap-2">
-          <legend className="mb-2 text-sm font-medium text-ink">Show the message as</legend>
-          <div className="inline-flex w-fit flex-wrap gap-1 rounded-lg border border-line bg-surface p-1">
-            {views.map((option) => (
-              <button
-                key={option}
-                type="button"
-                aria-pressed={view === option}
-                aria-controls={panelId}
-                onClick={() => setView(option)}
-                className={`flex min-h-target min-w-24 items-center justify-center rounded-md px-4 text-base font-medium transition-colors ${
-                  view === option ? 'bg-ink text-paper' : 'text-muted hover:bg-amber-wash hover:text-ink'
-                }`}
-              >
-                {viewLabels[option]}
-              </button>
-            ))}
-          </div>
-        </fieldset>
+        <ViewSwitch
+          legend="Show the message as"
+          labels={viewLabels}
+          value={view}
+          onChange={setView}
+          controls={panelId}
+        />
         <div id={panelId}>
           {view === 'html' ? <HtmlView message={message} /> : null}
           {view === 'text' ? <TextView message={message} /> : null}

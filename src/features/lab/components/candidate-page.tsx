@@ -9,6 +9,7 @@ import { LoadFailure } from '@/components/load-failure';
 import { Loading } from '@/components/loading';
 import { PageHeader } from '@/components/page-header';
 import { Select } from '@/components/select';
+import { ViewSwitch } from '@/components/view-switch';
 import { paths } from '@/config/paths';
 import { isApiError } from '@/lib/api-client';
 import { type CandidateDetail, useCandidate } from '../api/get-candidate';
@@ -262,37 +263,10 @@ function WindowsSection({
   );
 }
 
+const viewLabels: Record<View, string> = { list: 'List', calendar: 'Calendar' };
+
 function ViewToggle({ view, onView }: { view: View; onView: (view: View) => void }) {
-  const labelId = useId();
-  const options: { value: View; label: string }[] = [
-    { value: 'list', label: 'List' },
-    { value: 'calendar', label: 'Calendar' },
-  ];
-  return (
-    <div className="flex flex-col gap-1.5">
-      <span id={labelId} className="text-sm font-medium text-ink">
-        View
-      </span>
-      <fieldset
-        aria-labelledby={labelId}
-        className="inline-flex rounded-md border border-edge bg-surface p-0.5"
-      >
-        {options.map((option) => (
-          <button
-            key={option.value}
-            type="button"
-            aria-pressed={view === option.value}
-            onClick={() => onView(option.value)}
-            className={`min-h-target min-w-target rounded-sm px-4 text-base font-medium transition-colors ${
-              view === option.value ? 'bg-ink text-paper' : 'text-ink hover:bg-amber-wash'
-            }`}
-          >
-            {option.label}
-          </button>
-        ))}
-      </fieldset>
-    </div>
-  );
+  return <ViewSwitch legend="View" labels={viewLabels} value={view} onChange={onView} />;
 }
 
 function CandidateDetails({ candidate }: { candidate: CandidateDetail }) {

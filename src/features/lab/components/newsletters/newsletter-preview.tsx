@@ -1,11 +1,11 @@
 import { useId, useState } from 'react';
 import { Alert } from '@/components/alert';
 import { MailFrame } from '@/components/mail-frame';
+import { ViewSwitch } from '@/components/view-switch';
 import type { NewsletterPreview as Preview } from '../../lib/newsletters';
 
 type View = 'html' | 'text';
 const viewLabels: Record<View, string> = { html: 'As e-mail', text: 'Plain text' };
-const views = Object.keys(viewLabels) as View[];
 
 /** Unknown placeholders go out as written, braces and all, so the writer hears of them before sending. */
 export function UnknownPlaceholdersWarning({ placeholders }: { placeholders: readonly string[] }) {
@@ -36,23 +36,14 @@ export function NewsletterPreviewPanel({ preview, updating }: { preview: Preview
   return (
     <div className="flex flex-col gap-3">
       <div className="flex flex-wrap items-center justify-between gap-2">
-        <fieldset className="inline-flex w-fit gap-1 rounded-lg border border-line bg-surface p-1">
-          <legend className="sr-only">Show the preview</legend>
-          {views.map((option) => (
-            <button
-              key={option}
-              type="button"
-              aria-pressed={view === option}
-              aria-controls={panelId}
-              onClick={() => setView(option)}
-              className={`flex min-h-target min-w-24 items-center justify-center rounded-md px-4 text-base font-medium transition-colors ${
-                view === option ? 'bg-ink text-paper' : 'text-muted hover:bg-amber-wash hover:text-ink'
-              }`}
-            >
-              {viewLabels[option]}
-            </button>
-          ))}
-        </fieldset>
+        <ViewSwitch
+          legend="Show the preview"
+          legendHidden
+          labels={viewLabels}
+          value={view}
+          onChange={setView}
+          controls={panelId}
+        />
         <span aria-live="polite" className="text-sm text-muted">
           {updating ? 'Updating…' : ''}
         </span>
