@@ -11,6 +11,8 @@ export interface AppServer {
   baseUrl: string;
   /** The server's own DATA_DIR (its SQLite file is dipdeck.sqlite there), for a journey that sets up data. */
   dataDir: string;
+  /** The last 20 kB the server printed, for the record of a failed test. */
+  log: () => string;
   stop: () => Promise<void>;
 }
 
@@ -68,6 +70,8 @@ export async function startAppServer(): Promise<AppServer> {
       NODE_ENV: 'test',
       DIPDECK_DEMO: '1',
       DIPDECK_DEMO_TARGETS: '12',
+      // Kept in memory only, for the record of a failed test.
+      LOG_LEVEL: process.env.LOG_LEVEL ?? 'info',
     },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
@@ -94,5 +98,5 @@ export async function startAppServer(): Promise<AppServer> {
     await stop();
     throw error;
   }
-  return { baseUrl, dataDir, stop };
+  return { baseUrl, dataDir, log: () => log, stop };
 }

@@ -1,7 +1,4 @@
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
 import { type BrowserContext, chromium, type Page } from 'playwright-core';
 
 const chromiumArgs = [
@@ -26,24 +23,40 @@ function chromiumPath(): string {
 }
 
 export interface TestBrowser {
-  context: BrowserContext;
+  /** The current test's context: its own cookies and storage, nothing left over from the test before. */
+  readonly context: BrowserContext;
+  /**
+   * Closes the current context and opens a clean one. Clearing cookies on a shared context was not
+   * enough: a late answer to the previous test's page (the session is rolling, so every answer sets the
+   * cookie) could sign the next test in behind its back.
+   */
+  freshContext: () => Promise<BrowserContext>;
   close: () => Promise<void>;
 }
 
-/** The system Chromium with a throwaway profile; playwright's own browser downloads are never used. */
+/** The system Chromium; playwright's own browser downloads are never used. */
 export async function launchBrowser(): Promise<TestBrowser> {
-  const userDataDir = mkdtempSync(path.join(tmpdir(), 'dipdeck-chromium-'));
-  const context = await chromium.launchPersistentContext(userDataDir, {
+  const browser = await chromium.launch({
     executablePath: chromiumPath(),
     headless: true,
     args: chromiumArgs,
-    viewport: { width: 1440, height: 900 },
   });
+  let context: BrowserContext | undefined;
+  const freshContext = async () => {
+    await context?.close();
+    context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+    return context;
+  };
+  await freshContext();
   return {
-    context,
+    get context() {
+      if (!context) throw new Error('the browser has no open context');
+      return context;
+    },
+    freshContext,
     close: async () => {
-      await context.close();
-      rmSync(userDataDir, { recursive: true, force: true });
+      await context?.close();
+      await browser.close();
     },
   };
 }

@@ -1,4 +1,4 @@
-import { mkdirSync } from 'node:fs';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, beforeEach, expect } from 'vitest';
@@ -12,6 +12,7 @@ export const DEMO_PASSWORD = 'dipdeck-demo';
 export const PHONE = { width: 375, height: 812 };
 export const DESKTOP = { width: 1440, height: 900 };
 export const SCREENSHOT_DIR = path.resolve(import.meta.dirname, '../../../test-results/screenshots');
+const FAILURE_DIR = path.resolve(import.meta.dirname, '../../../test-results/failures');
 
 // While nobody is signed in the app asks who is, and the API rightly answers 401.
 const SIGNED_OUT_CHECK: ExpectedFailure = { path: '/api/auth/me', status: 401 };
@@ -65,17 +66,28 @@ export function setUpBrowserJourney(options: JourneyOptions = {}): Journey {
     await server?.stop();
   });
   beforeEach(async () => {
-    await browser.context.clearCookies();
+    const context = await browser.freshContext();
     expected = [SIGNED_OUT_CHECK];
-    page = await browser.context.newPage();
+    page = await context.newPage();
     await page.setViewportSize(DESKTOP);
     takeErrors = watchPageErrors(page, () => expected);
   });
-  afterEach(async () => {
+  afterEach(async (context) => {
+    if (context.task.result?.state === 'fail') await recordFailure(context.task.name);
     const errors = takeErrors().filter((error) => !options.ignoreErrors?.test(error));
     await page.close();
     expect(errors, 'the page logged errors').toEqual([]);
   });
+
+  // A failed journey leaves what the browser showed and what the server said, so a failure that happens
+  // only on a loaded CI machine can be read afterwards rather than guessed at.
+  async function recordFailure(testName: string) {
+    mkdirSync(FAILURE_DIR, { recursive: true });
+    const base = path.join(FAILURE_DIR, testName.replace(/[^a-z0-9]+/gi, '-').slice(0, 80));
+    await page.screenshot({ path: `${base}.png`, fullPage: true }).catch(() => {});
+    writeFileSync(`${base}.log`, `page: ${page.url()}\n\nserver log (last 20 kB):\n${server.log()}`);
+    process.stderr.write(`browser test failed on ${page.url()}; screenshot and server log in ${base}.*\n`);
+  }
 
   const journey: Journey = {
     get server() {
