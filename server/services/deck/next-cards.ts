@@ -25,7 +25,7 @@ export interface Card {
 
 const POOL_SIZE = 60; // candidates per kind, closest to settling first, sampled at random
 
-type Kind = 'real' | 'planted' | 'quiet';
+export type Kind = 'real' | 'planted' | 'quiet';
 
 interface Candidate {
   id: number;
@@ -33,7 +33,8 @@ interface Candidate {
   verdictCount: number;
 }
 
-async function pool(
+/** The pool's query, on its own so a test can check that the database walks an index for it. */
+export function poolQuery(
   db: Db,
   campaignId: number,
   kind: Kind,
@@ -44,6 +45,7 @@ async function pool(
   const judged = judge.personId
     ? db('verdicts').select('snippet_id').where('person_id', judge.personId)
     : db('verdicts').select('snippet_id').where('guest_key', judge.guestKey);
+  // In the order of snippets_pool_order_index (migrations/20261202050000_deck_pool_order.ts).
   const query = db('snippets')
     .select('id', 'target_id', 'verdict_count')
     .where({ campaign_id: campaignId, state: 'open', kind })
@@ -52,7 +54,11 @@ async function pool(
     .orderBy([{ column: 'verdict_count', order: 'desc' }, 'id'])
     .limit(POOL_SIZE);
   if (exclude.length > 0) query.whereNotIn('id', exclude);
-  const rows: Record<string, unknown>[] = await query;
+  return query;
+}
+
+async function pool(...args: Parameters<typeof poolQuery>): Promise<Candidate[]> {
+  const rows: Record<string, unknown>[] = await poolQuery(...args);
   return rows.map((row) => ({
     id: Number(row.id),
     targetId: Number(row.target_id),

@@ -39,7 +39,11 @@ export function serverProcess(options: { port: number; dataDir: string }): Serve
     if (child && child.exitCode === null && child.signalCode === null) {
       throw new Error('the server is already running');
     }
-    const started = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    // LOAD_CPU_PROFILE_DIR=dir writes the server's V8 CPU profile there when it stops (NODE_OPTIONS refuses --cpu-prof).
+    const profile = process.env.LOAD_CPU_PROFILE_DIR
+      ? ['--cpu-prof', `--cpu-prof-dir=${process.env.LOAD_CPU_PROFILE_DIR}`]
+      : [];
+    const started = spawn(process.execPath, [...profile, '--import', 'tsx', 'server/index.ts'], {
       cwd: repo,
       env: {
         ...inherited,

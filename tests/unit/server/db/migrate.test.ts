@@ -12,7 +12,7 @@ afterAll(async () => {
   fs.rmSync(dir, { recursive: true, force: true });
 });
 
-const MIGRATION_COUNT = 7;
+const MIGRATION_COUNT = 8;
 
 const EXPECTED_TABLES = [
   'api_tokens',
